@@ -1,0 +1,21 @@
+/**
+ * Jest for the api: unit specs beside the code, integration specs on a real PostgreSQL and Redis.
+ * The global setup starts a throwaway cluster unless DATABASE_URL is already set (as `npm test` does).
+ */
+const tsJest = ['ts-jest', { tsconfig: '<rootDir>/tsconfig.spec.json' }];
+module.exports = {
+  rootDir: '.',
+  roots: ['<rootDir>/src', '<rootDir>/test'],
+  testEnvironment: 'node',
+  testMatch: ['**/*.spec.ts'],
+  transform: { '^.+\\.ts$': tsJest, '^.+\\.js$': tsJest },
+  // ESM-only packages are turned into CommonJS for Jest.
+  transformIgnorePatterns: ['/node_modules/(?!(d3-array|internmap)/)'],
+  moduleNameMapper: {
+    '^@provenote/shared$': '<rootDir>/../shared/src/index.ts',
+    '^@provenote/workers$': '<rootDir>/../workers/src/index.ts',
+  },
+  globalSetup: '<rootDir>/test/global-setup.cjs',
+  globalTeardown: '<rootDir>/test/global-teardown.cjs',
+  testTimeout: 30000,
+};

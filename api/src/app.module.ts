@@ -1,0 +1,29 @@
+import { DynamicModule, Module } from '@nestjs/common';
+import { APP_FILTER, APP_PIPE } from '@nestjs/core';
+import { TypeOrmModule } from '@nestjs/typeorm';
+import { ZodValidationPipe } from 'nestjs-zod';
+import { AllExceptionsFilter } from './common/all-exceptions.filter';
+import type { AppConfig } from './config/config';
+import { AppConfigModule } from './config/config.module';
+import { dataSourceOptions } from './database/typeorm-options';
+import { HealthModule } from './health/health.module';
+import { RedisModule } from './redis/redis.module';
+
+@Module({})
+export class AppModule {
+  static forRoot(config: AppConfig): DynamicModule {
+    return {
+      module: AppModule,
+      imports: [
+        AppConfigModule.forRoot(config),
+        TypeOrmModule.forRoot({ ...dataSourceOptions(config.DATABASE_URL), autoLoadEntities: true }),
+        RedisModule,
+        HealthModule,
+      ],
+      providers: [
+        { provide: APP_PIPE, useClass: ZodValidationPipe },
+        { provide: APP_FILTER, useClass: AllExceptionsFilter },
+      ],
+    };
+  }
+}

@@ -1,0 +1,5 @@
+'use strict';
+
+module.exports = async function globalTeardown() {
+  await globalThis.__provenoteServices?.stop();
+};
