@@ -1,2 +1,2 @@
 export const ENGINE_VERSION = '0.1.0';
-export * from './schemas';
+export * from './engine/index.js';
