@@ -1,2 +1,4 @@
 export * from './health';
 export * from './roles';
+export * from './jobs';
+export * from './runs';
