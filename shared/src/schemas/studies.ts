@@ -1,0 +1,207 @@
+import { z } from 'zod';
+import { stepKeySchema, stepStatusSchema, type StepKey } from './notebook';
+import { assignmentVerdictSchema as verdictSchema } from './runs';
+
+const reasonSchema = z
+  .string()
+  .trim()
+  .min(10, { error: 'Write at least 10 characters: say why, for whoever reads the record later' })
+  .max(2000, { error: 'Use at most 2000 characters' });
+
+export const studyNameSchema = z
+  .string()
+  .trim()
+  .min(1, { error: 'Give the study a name' })
+  .max(200, { error: 'Use at most 200 characters' });
+
+export const studyDescriptionSchema = z.string().trim().max(5000, { error: 'Use at most 5000 characters' });
+
+/** Data card: the pinned dataset versions (never "the latest"), so a study reads the same data forever. */
+export const dataStepParametersSchema = z.object({
+  referenceVersionId: z.uuid({ error: 'Choose a version of a reference dataset' }).nullable(),
+  unknownsVersionId: z.uuid({ error: 'Choose a version of an unknowns dataset' }).nullable(),
+});
+
+/** Prepare card: how the measurements become the coordinates distances are computed in. */
+export const prepareStepParametersSchema = z
+  .object({
+    elements: z.array(z.string().min(1)).min(2, { error: 'Choose at least two elements' }),
+    transform: z.enum(['none', 'log10', 'ln', 'alr', 'clr', 'ilr']),
+    alrDenominator: z.string().min(1).nullable(),
+    belowDetection: z.enum(['dl-half', 'dl-sqrt2', 'multiplicative']),
+    covariance: z.enum(['classic', 'mcd']),
+    seed: z
+      .number()
+      .int()
+      .min(0)
+      .max(2 ** 31 - 1),
+  })
+  .refine((p) => new Set(p.elements).size === p.elements.length, {
+    error: 'Each element may be chosen once',
+    path: ['elements'],
+  })
+  .refine((p) => p.transform !== 'alr' || (p.alrDenominator !== null && p.elements.includes(p.alrDenominator)), {
+    error: 'Choose the alr denominator among the chosen elements',
+    path: ['alrDenominator'],
+  });
+
+/** Reference groups card: which group versions the study assigns against. */
+export const groupsStepParametersSchema = z.object({
+  groupVersionIds: z.array(z.uuid()).min(2, { error: 'Choose at least two reference groups' }),
+});
+
+export const memberExclusionSchema = z.object({
+  sampleId: z.string().min(1),
+  group: z.string().min(1),
+  reason: reasonSchema,
+});
+export type MemberExclusion = z.infer<typeof memberExclusionSchema>;
+
+/** Group check card: members left out of their group, each with the reason kept in the record. */
+export const checkStepParametersSchema = z.object({
+  exclusions: z
+    .array(memberExclusionSchema)
+    .refine((list) => new Set(list.map((e) => `${e.group}\u0000${e.sampleId}`)).size === list.length, {
+      error: 'A member can be excluded once',
+    }),
+});
+
+/** Assign card: the probability a verdict is judged on and the level α. */
+export const assignStepParametersSchema = z.object({
+  probability: z.enum(['chi2', 'hotelling']),
+  alpha: z.number().gt(0, { error: 'α must be above 0' }).max(0.5, { error: 'α must be at most 0.5' }),
+});
+
+export const emptyStepParametersSchema = z.object({}).strict();
+
+export const stepParametersSchemas = {
+  data: dataStepParametersSchema,
+  prepare: prepareStepParametersSchema,
+  groups: groupsStepParametersSchema,
+  check: checkStepParametersSchema,
+  assign: assignStepParametersSchema,
+  review: emptyStepParametersSchema,
+  export: emptyStepParametersSchema,
+} as const satisfies Record<StepKey, z.ZodType>;
+
+export type StepParameters = { [K in StepKey]: z.infer<(typeof stepParametersSchemas)[K]> };
+
+/** What a new study's cards start from; data and groups must be chosen before anything can run. */
+export const defaultStepParameters: { [K in StepKey]: StepParameters[K] | null } = {
+  data: null,
+  prepare: null,
+  groups: null,
+  check: { exclusions: [] },
+  assign: { probability: 'hotelling', alpha: 0.05 },
+  review: {},
+  export: {},
+};
+
+export const stepSchema = z.object({
+  key: stepKeySchema,
+  status: stepStatusSchema,
+  /** Null until the card's settings are first saved. */
+  parameters: z.record(z.string(), z.unknown()).nullable(),
+  runId: z.uuid().nullable(),
+  error: z.string().nullable(),
+  updatedAt: z.iso.datetime({ offset: true }),
+  updatedBy: z.string().nullable(),
+});
+export type Step = z.infer<typeof stepSchema>;
+
+/** Overall state shown in the study list. */
+export const studyStatuses = ['draft', 'in_progress', 'needs_rerun', 'ready_for_review', 'signed_off'] as const;
+export const studyStatusSchema = z.enum(studyStatuses);
+export type StudyStatus = z.infer<typeof studyStatusSchema>;
+
+export const studyStatusLabels: Record<StudyStatus, string> = {
+  draft: 'Draft',
+  in_progress: 'In progress',
+  needs_rerun: 'Needs re-run',
+  ready_for_review: 'Ready for review',
+  signed_off: 'Signed off',
+};
+
+export const studySummarySchema = z.object({
+  id: z.uuid(),
+  labId: z.uuid(),
+  name: z.string(),
+  description: z.string(),
+  status: studyStatusSchema,
+  owner: z.object({ id: z.uuid(), displayName: z.string() }).nullable(),
+  copiedFromId: z.uuid().nullable(),
+  createdAt: z.iso.datetime({ offset: true }),
+  updatedAt: z.iso.datetime({ offset: true }),
+  signedOffAt: z.iso.datetime({ offset: true }).nullable(),
+  signedOffBy: z.string().nullable(),
+});
+export type StudySummary = z.infer<typeof studySummarySchema>;
+
+/** GET /api/labs/:labId/studies — most recently changed first. */
+export const studyListSchema = z.object({ studies: z.array(studySummarySchema) });
+export type StudyList = z.infer<typeof studyListSchema>;
+
+/** GET /api/labs/:labId/studies/:studyId */
+export const studySchema = studySummarySchema.extend({ steps: z.array(stepSchema) });
+export type Study = z.infer<typeof studySchema>;
+
+/** POST /api/labs/:labId/studies */
+export const createStudySchema = z.object({ name: studyNameSchema, description: studyDescriptionSchema.default('') });
+export type CreateStudy = z.infer<typeof createStudySchema>;
+
+/** PATCH /api/labs/:labId/studies/:studyId */
+export const updateStudySchema = z
+  .object({ name: studyNameSchema.optional(), description: studyDescriptionSchema.optional() })
+  .refine((u) => u.name !== undefined || u.description !== undefined, { error: 'Change the name or description' });
+export type UpdateStudy = z.infer<typeof updateStudySchema>;
+
+/** POST /api/labs/:labId/studies/:studyId/copy — the same settings on other data; nothing computed is copied. */
+export const copyStudySchema = z.object({
+  name: studyNameSchema,
+  data: dataStepParametersSchema,
+});
+export type CopyStudy = z.infer<typeof copyStudySchema>;
+
+/** PUT /api/labs/:labId/studies/:studyId/steps/:stepKey — the card's settings, checked per card. */
+export const updateStepSchema = z.object({ parameters: z.record(z.string(), z.unknown()) });
+export type UpdateStep = z.infer<typeof updateStepSchema>;
+
+/** The answer to saving a card: the study as it is now and the cards the change made stale. */
+export const stepEditResultSchema = z.object({ study: studySchema, staleSteps: z.array(stepKeySchema) });
+export type StepEditResult = z.infer<typeof stepEditResultSchema>;
+
+/** POST /api/labs/:labId/studies/:studyId/overrides — an analyst's final verdict beside the computed one. */
+export const createOverrideSchema = z
+  .object({
+    sampleId: z.string().min(1),
+    verdict: verdictSchema,
+    group: z.string().min(1).nullable(),
+    reason: reasonSchema,
+  })
+  .refine((o) => (o.verdict === 'unassigned') === (o.group === null), {
+    error: 'An assigned or ambiguous verdict names a group; an unassigned one does not',
+    path: ['group'],
+  });
+export type CreateOverride = z.infer<typeof createOverrideSchema>;
+
+export const overrideSchema = z.object({
+  id: z.uuid(),
+  runId: z.uuid(),
+  sampleId: z.string(),
+  computedVerdict: verdictSchema,
+  computedGroup: z.string().nullable(),
+  verdict: verdictSchema,
+  group: z.string().nullable(),
+  reason: z.string(),
+  createdBy: z.string().nullable(),
+  createdAt: z.iso.datetime({ offset: true }),
+});
+export type Override = z.infer<typeof overrideSchema>;
+
+export const overrideListSchema = z.object({ overrides: z.array(overrideSchema) });
+
+/** POST /api/labs/:labId/studies/:studyId/sign-off */
+export const signOffSchema = z.object({
+  statement: z.string().trim().max(2000).default(''),
+});
+export type SignOff = z.infer<typeof signOffSchema>;
