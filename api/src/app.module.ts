@@ -2,11 +2,15 @@ import { DynamicModule, Module } from '@nestjs/common';
 import { APP_FILTER, APP_PIPE } from '@nestjs/core';
 import { TypeOrmModule } from '@nestjs/typeorm';
 import { ZodValidationPipe } from 'nestjs-zod';
+import { AccountsModule } from './accounts/accounts.module';
+import { AuditModule } from './audit/audit.module';
+import { AuthModule } from './auth/auth.module';
 import { AllExceptionsFilter } from './common/all-exceptions.filter';
 import type { AppConfig } from './config/config';
 import { AppConfigModule } from './config/config.module';
 import { dataSourceOptions } from './database/typeorm-options';
 import { HealthModule } from './health/health.module';
+import { RateLimitModule } from './rate-limit/rate-limit.module';
 import { RedisModule } from './redis/redis.module';
 
 @Module({})
@@ -18,6 +22,10 @@ export class AppModule {
         AppConfigModule.forRoot(config),
         TypeOrmModule.forRoot({ ...dataSourceOptions(config.DATABASE_URL), autoLoadEntities: true }),
         RedisModule,
+        RateLimitModule,
+        AuditModule,
+        AuthModule,
+        AccountsModule,
         HealthModule,
       ],
       providers: [

@@ -5,3 +5,6 @@ export * from './runs';
 export * from './notebook';
 export * from './studies';
 export * from './groups';
+export * from './auth';
+export * from './accounts';
+export * from './audit';
