@@ -14,6 +14,8 @@ module.exports = {
   moduleNameMapper: {
     '^@provenote/shared$': '<rootDir>/../shared/src/index.ts',
     '^@provenote/workers$': '<rootDir>/../workers/src/index.ts',
+    // The shared workspace's sources import each other with ".js" (nodenext); Jest reads the .ts beside them.
+    '^(\\.{1,2}/.*)\\.js$': '$1',
   },
   globalSetup: '<rootDir>/test/global-setup.cjs',
   globalTeardown: '<rootDir>/test/global-teardown.cjs',
