@@ -14,8 +14,10 @@ const { execFileSync } = require('node:child_process');
 const dataDir = path.join(__dirname, 'data');
 const generated = ['reference-soils.csv', 'reservoir-core.csv', 'reservoir-core-eu.csv', 'truth.csv'];
 
-function generateInto(seedArguments) {
+/** A fresh run of the generator into a temporary folder that is removed when the test ends, pass or fail. */
+function generateInto(t, seedArguments) {
   const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'provenote-samples-'));
+  t.after(() => fs.rmSync(dir, { recursive: true, force: true }));
   execFileSync(process.execPath, [path.join(__dirname, 'generate.cjs'), ...seedArguments, '--out', dir]);
   return dir;
 }
@@ -30,21 +32,19 @@ const reference = readTable('reference-soils.csv');
 const core = readTable('reservoir-core.csv');
 const truth = readTable('truth.csv');
 
-test('the generator reproduces the committed files byte for byte', () => {
-  const dir = generateInto([]);
+test('the generator reproduces the committed files byte for byte', (t) => {
+  const dir = generateInto(t, []);
   assert.deepEqual(fs.readdirSync(dir).sort(), [...generated].sort());
   for (const name of generated) {
     const fresh = fs.readFileSync(path.join(dir, name));
     assert.ok(fresh.equals(fs.readFileSync(path.join(dataDir, name))), `${name} differs from a fresh run`);
   }
-  fs.rmSync(dir, { recursive: true });
 });
 
-test('another seed gives other data', () => {
-  const dir = generateInto(['--seed', '7']);
+test('another seed gives other data', (t) => {
+  const dir = generateInto(t, ['--seed', '7']);
   const other = fs.readFileSync(path.join(dir, 'reference-soils.csv'));
   assert.ok(!other.equals(fs.readFileSync(path.join(dataDir, 'reference-soils.csv'))));
-  fs.rmSync(dir, { recursive: true });
 });
 
 test('reference groups: five sources of 15–60 samples, one of them small', () => {
