@@ -21,6 +21,7 @@ const checks = [
   { name: 'typecheck and build (shared, workers, api)', run: () => buildServer() },
   { name: 'build (web)', run: () => buildWeb({ force: true }) },
   { name: 'lint', run: () => run('npx', ['eslint', '.', '--max-warnings', '0']) },
+  { name: 'demo data match their seeded generator', run: () => run('node', ['samples/check.cjs']) },
 ];
 
 const vitest = (cwd, config) => (report) =>
