@@ -8,3 +8,4 @@ export * from './groups';
 export * from './auth';
 export * from './accounts';
 export * from './audit';
+export * from './datasets';
