@@ -1,4 +1,4 @@
-import { collectImport, fixture } from '../test-support/collect-import';
+import { collectImport, fixture } from '../../../test/fixtures/import/collect-import';
 import { FileRejectedError } from './import-errors';
 
 const load = (name: string, kind: 'reference' | 'unknowns' | null = null) => collectImport(fixture(name), name, kind);

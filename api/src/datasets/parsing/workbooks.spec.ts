@@ -1,5 +1,5 @@
-import { collectImport } from '../test-support/collect-import';
-import { workbookWithFormulas, zipBomb } from '../test-support/workbooks';
+import { collectImport } from '../../../test/fixtures/import/collect-import';
+import { workbookWithFormulas, zipBomb } from '../../../test/fixtures/import/workbooks';
 import { FileRejectedError } from './import-errors';
 import { analyseFile } from './parse-file';
 import { assertSafeZip } from './zip-guard';
