@@ -1,0 +1,64 @@
+import { Inject, Injectable, Logger, Optional } from '@nestjs/common';
+import { InjectDataSource } from '@nestjs/typeorm';
+import { DataSource } from 'typeorm';
+import type { RunEvent } from '@provenote/shared';
+import { APP_CONFIG } from '../config/config.module';
+import type { AppConfig } from '../config/config';
+
+/** Whatever sends mail for the product; the runs module asks for it under RUN_MAILER. */
+export interface RunMailer {
+  send(message: { to: string; subject: string; text: string }): Promise<unknown>;
+}
+export const RUN_MAILER = Symbol('RUN_MAILER');
+
+const CAUTION =
+  'A membership probability is statistical evidence of how typical a sample is of a reference group, not proof of its origin.';
+
+const KIND_LABELS: Record<string, string> = {
+  classify: 'assignment',
+  'group-check': 'group check',
+  'robust-fit': 'robust fit',
+  bundle: 'result bundle',
+};
+
+/** Tells the person who started a run that it ended, with a link to it. */
+@Injectable()
+export class RunEndedNotifier {
+  private readonly logger = new Logger('RunEnded');
+
+  constructor(
+    @InjectDataSource() private readonly dataSource: DataSource,
+    @Inject(APP_CONFIG) private readonly config: AppConfig,
+    @Optional() @Inject(RUN_MAILER) private readonly mailer?: RunMailer,
+  ) {}
+
+  async runEnded(event: RunEvent): Promise<void> {
+    const rows = (await this.dataSource.query(
+      `SELECT r.kind, r.lab_id, u.email, u.display_name FROM runs r JOIN users u ON u.id = r.created_by WHERE r.id = $1`,
+      [event.runId],
+    )) as { kind: string; lab_id: string; email: string; display_name: string }[];
+    const row = rows[0];
+    if (!row) return;
+    const message = composeRunEndedMail(
+      event,
+      row.kind,
+      `${this.config.PUBLIC_URL}/labs/${row.lab_id}/runs/${event.runId}`,
+    );
+    if (!this.mailer) {
+      this.logger.log(`no mail service configured; would tell ${row.email}: ${message.subject}`);
+      return;
+    }
+    await this.mailer.send({ to: row.email, ...message });
+  }
+}
+
+export function composeRunEndedMail(event: RunEvent, kind: string, link: string): { subject: string; text: string } {
+  const what = KIND_LABELS[kind] ?? kind;
+  const outcome =
+    event.status === 'succeeded' ? 'has finished' : event.status === 'cancelled' ? 'was cancelled' : 'failed';
+  const lines = [`Your ${what} run ${outcome}.`, ''];
+  if (event.status === 'failed' && event.error) lines.push(`Reason: ${event.error}`, '');
+  lines.push(`Open it: ${link}`);
+  if (event.status === 'succeeded' && kind === 'classify') lines.push('', CAUTION);
+  return { subject: `Provenote: ${what} run ${outcome}`, text: lines.join('\n') };
+}
