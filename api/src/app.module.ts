@@ -12,6 +12,7 @@ import { dataSourceOptions } from './database/typeorm-options';
 import { HealthModule } from './health/health.module';
 import { RateLimitModule } from './rate-limit/rate-limit.module';
 import { RedisModule } from './redis/redis.module';
+import { RunsModule } from './runs/runs.module';
 
 @Module({})
 export class AppModule {
@@ -27,6 +28,7 @@ export class AppModule {
         AuthModule,
         AccountsModule,
         HealthModule,
+        RunsModule,
       ],
       providers: [
         { provide: APP_PIPE, useClass: ZodValidationPipe },
