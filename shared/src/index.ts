@@ -1,3 +1,3 @@
 export const ENGINE_VERSION = '0.1.0';
-export * from './engine/index.js';
-export * from './schemas/index.js';
+export * from './engine/index';
+export * from './schemas/index';

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { assessGroupSize } from './group-size.js';
+import { assessGroupSize } from './group-size';
 
 describe('assessGroupSize', () => {
   it('refuses n ≤ p', () => {

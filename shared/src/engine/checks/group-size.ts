@@ -1,4 +1,4 @@
-import { chiSquareFalseRejectionRate } from '../distributions/false-rejection-rate.js';
+import { chiSquareFalseRejectionRate } from '../distributions/false-rejection-rate';
 
 export type SizeStatus = 'ok' | 'warning' | 'error';
 

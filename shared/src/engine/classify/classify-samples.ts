@@ -1,9 +1,9 @@
-import { InvalidInputError } from '../errors/engine-errors.js';
-import { assertFiniteMatrix, type Matrix } from '../linalg/matrix.js';
-import { classifyInBlocks } from '../kernel/classify-kernel.js';
-import { packGroups } from '../kernel/packed-groups.js';
-import type { GroupModel } from '../stats/group-model.js';
-import { decideVerdict, type ProbabilityBasis, type VerdictResult } from '../verdicts/verdict.js';
+import { InvalidInputError } from '../errors/engine-errors';
+import { assertFiniteMatrix, type Matrix } from '../linalg/matrix';
+import { classifyInBlocks } from '../kernel/classify-kernel';
+import { packGroups } from '../kernel/packed-groups';
+import type { GroupModel } from '../stats/group-model';
+import { decideVerdict, type ProbabilityBasis, type VerdictResult } from '../verdicts/verdict';
 
 export interface SampleClassification {
   /** Per group, in the order of the models. */

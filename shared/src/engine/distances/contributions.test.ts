@@ -1,8 +1,8 @@
 import { describe, expect, it } from 'vitest';
-import { squaredDistance } from '../linalg/cholesky.js';
-import { mulberry32 } from '../random/mulberry32.js';
-import { fitGroup } from '../stats/group-model.js';
-import { distanceContributions } from './contributions.js';
+import { squaredDistance } from '../linalg/cholesky';
+import { mulberry32 } from '../random/mulberry32';
+import { fitGroup } from '../stats/group-model';
+import { distanceContributions } from './contributions';
 
 describe('distanceContributions', () => {
   it('are non-negative and sum to D²', () => {

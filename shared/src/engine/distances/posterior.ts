@@ -1,4 +1,4 @@
-import { InvalidInputError } from '../errors/engine-errors.js';
+import { InvalidInputError } from '../errors/engine-errors';
 
 /**
  * Posterior probabilities of group membership under the quadratic discriminant rule:

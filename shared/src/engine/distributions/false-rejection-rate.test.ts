@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { GroupTooSmallError } from '../errors/engine-errors.js';
-import { chiSquareFalseRejectionRate } from './false-rejection-rate.js';
+import { GroupTooSmallError } from '../errors/engine-errors';
+import { chiSquareFalseRejectionRate } from './false-rejection-rate';
 
 describe('chiSquareFalseRejectionRate', () => {
   it('is about 27 % for n = 12, p = 4, α = 0.05 (METHODS.md §1, verified there by simulation)', () => {

@@ -1,6 +1,6 @@
-import { GroupTooSmallError } from '../errors/engine-errors.js';
-import { chiSquareQuantile } from './quantiles.js';
-import { fUpperTail } from './upper-tails.js';
+import { GroupTooSmallError } from '../errors/engine-errors';
+import { chiSquareQuantile } from './quantiles';
+import { fUpperTail } from './upper-tails';
 
 /**
  * Exact probability that the chi-square rule at level α rejects a true new member of a normal group

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
-import { mulberry32 } from '../random/mulberry32.js';
-import { betaUpperTailFor, betaUpperTailIntegerA, chiSquareUpperTailEvenDf, chiSquareUpperTailFor } from './fast-upper-tails.js';
-import { betaUpperTail, chiSquareUpperTail } from './upper-tails.js';
+import { mulberry32 } from '../random/mulberry32';
+import { betaUpperTailFor, betaUpperTailIntegerA, chiSquareUpperTailEvenDf, chiSquareUpperTailFor } from './fast-upper-tails';
+import { betaUpperTail, chiSquareUpperTail } from './upper-tails';
 
 const relative = (a: number, b: number): number => Math.abs(a - b) / Math.abs(b);
 

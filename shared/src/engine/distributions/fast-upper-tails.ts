@@ -1,4 +1,4 @@
-import { betaUpperTail, chiSquareUpperTail } from './upper-tails.js';
+import { betaUpperTail, chiSquareUpperTail } from './upper-tails';
 
 /*
  * Exact finite series for the upper tails that the classification kernel evaluates millions of times.

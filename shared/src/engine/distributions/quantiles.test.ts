@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { betaQuantile, chiSquareQuantile, fQuantile } from './quantiles.js';
-import { betaUpperTail } from './upper-tails.js';
+import { betaQuantile, chiSquareQuantile, fQuantile } from './quantiles';
+import { betaUpperTail } from './upper-tails';
 
 // Source: NIST/SEMATECH e-Handbook of Statistical Methods §1.3.6.7.4 (upper critical values of the
 // chi-square distribution), as listed in METHODS.md §7 (three decimals).

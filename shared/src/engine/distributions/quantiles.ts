@@ -1,7 +1,7 @@
 import betaQuantileStdlib from '@stdlib/stats-base-dists-beta-quantile';
 import chiSquareQuantileStdlib from '@stdlib/stats-base-dists-chisquare-quantile';
 import fQuantileStdlib from '@stdlib/stats-base-dists-f-quantile';
-import { InvalidInputError } from '../errors/engine-errors.js';
+import { InvalidInputError } from '../errors/engine-errors';
 
 function assertProbability(probability: number): void {
   if (!(probability >= 0 && probability <= 1)) {

@@ -1,7 +1,7 @@
 import { jStat } from 'jstat';
 import { describe, expect, it } from 'vitest';
-import { InvalidInputError } from '../errors/engine-errors.js';
-import { betaUpperTail, chiSquareUpperTail, fUpperTail } from './upper-tails.js';
+import { InvalidInputError } from '../errors/engine-errors';
+import { betaUpperTail, chiSquareUpperTail, fUpperTail } from './upper-tails';
 
 // Reference: jstat 1.9.6 (an independent implementation of the same functions). jstat computes
 // 1 − cdf and its continued fractions stop near 1e-8 relative (it gives 0.49999998 for the exact

@@ -1,6 +1,6 @@
 import betainc from '@stdlib/math-base-special-betainc';
 import gammainc from '@stdlib/math-base-special-gammainc';
-import { InvalidInputError } from '../errors/engine-errors.js';
+import { InvalidInputError } from '../errors/engine-errors';
 
 /*
  * Upper tails are evaluated directly as regularized upper incomplete gamma and beta functions

@@ -1,10 +1,10 @@
 import { describe, expect, it } from 'vitest';
-import { pChiSquare, pHotelling } from '../distances/membership.js';
-import { squaredDistance } from '../linalg/cholesky.js';
-import { mulberry32 } from '../random/mulberry32.js';
-import { fitGroup } from '../stats/group-model.js';
-import { allocateKernelOutput, classifyBlock, classifyInBlocks } from './classify-kernel.js';
-import { packGroups } from './packed-groups.js';
+import { pChiSquare, pHotelling } from '../distances/membership';
+import { squaredDistance } from '../linalg/cholesky';
+import { mulberry32 } from '../random/mulberry32';
+import { fitGroup } from '../stats/group-model';
+import { allocateKernelOutput, classifyBlock, classifyInBlocks } from './classify-kernel';
+import { packGroups } from './packed-groups';
 
 function syntheticGroups(p: number, g: number, seed: number) {
   const random = mulberry32(seed);

@@ -1,6 +1,6 @@
-import { betaUpperTailFor, chiSquareUpperTailFor } from '../distributions/fast-upper-tails.js';
-import { InvalidInputError } from '../errors/engine-errors.js';
-import type { PackedGroups } from './packed-groups.js';
+import { betaUpperTailFor, chiSquareUpperTailFor } from '../distributions/fast-upper-tails';
+import { InvalidInputError } from '../errors/engine-errors';
+import type { PackedGroups } from './packed-groups';
 
 /** Outputs for a block of rows, sample-major: entry (i, k) at i·G + k. */
 export interface KernelOutput {

@@ -1,5 +1,5 @@
-import { GroupTooSmallError, InvalidInputError } from '../errors/engine-errors.js';
-import type { GroupModel } from '../stats/group-model.js';
+import { GroupTooSmallError, InvalidInputError } from '../errors/engine-errors';
+import type { GroupModel } from '../stats/group-model';
 
 /**
  * Reference groups packed into flat Float64Arrays for the classification kernel: the means, the

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
-import { SingularCovarianceError } from '../errors/engine-errors.js';
-import { cholesky, choleskyOrNull, squaredDistance, whiten } from './cholesky.js';
-import { multiply, transpose } from './matrix.js';
+import { SingularCovarianceError } from '../errors/engine-errors';
+import { cholesky, choleskyOrNull, squaredDistance, whiten } from './cholesky';
+import { multiply, transpose } from './matrix';
 
 const context = (variables: string[]) => ({ group: 'Quarry A', variables });
 

@@ -1,5 +1,5 @@
-import { SingularCovarianceError } from '../errors/engine-errors.js';
-import type { Matrix } from './matrix.js';
+import { SingularCovarianceError } from '../errors/engine-errors';
+import type { Matrix } from './matrix';
 
 /**
  * Smallest accepted share of a variable's variance that is not explained by the variables before it

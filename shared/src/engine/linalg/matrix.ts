@@ -1,4 +1,4 @@
-import { InvalidInputError } from '../errors/engine-errors.js';
+import { InvalidInputError } from '../errors/engine-errors';
 
 /** Plain row-major matrices: rows are samples (or matrix rows), columns are variables. */
 export type Matrix = readonly (readonly number[])[];

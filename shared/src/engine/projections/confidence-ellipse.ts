@@ -1,6 +1,6 @@
-import { chiSquareQuantile, fQuantile } from '../distributions/quantiles.js';
-import { GroupTooSmallError, InvalidInputError } from '../errors/engine-errors.js';
-import type { Matrix } from '../linalg/matrix.js';
+import { chiSquareQuantile, fQuantile } from '../distributions/quantiles';
+import { GroupTooSmallError, InvalidInputError } from '../errors/engine-errors';
+import type { Matrix } from '../linalg/matrix';
 
 export interface ProjectedGroup {
   readonly mean: [number, number];

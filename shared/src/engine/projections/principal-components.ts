@@ -1,7 +1,7 @@
-import { InvalidInputError } from '../errors/engine-errors.js';
-import { assertFiniteMatrix, type Matrix } from '../linalg/matrix.js';
-import { columnMeans, covariance } from '../stats/moments.js';
-import { symmetricEigen } from './symmetric-eigen.js';
+import { InvalidInputError } from '../errors/engine-errors';
+import { assertFiniteMatrix, type Matrix } from '../linalg/matrix';
+import { columnMeans, covariance } from '../stats/moments';
+import { symmetricEigen } from './symmetric-eigen';
 
 export interface PrincipalComponents {
   readonly centre: number[];

@@ -1,5 +1,5 @@
 import { EigenvalueDecomposition, Matrix as MlMatrix } from 'ml-matrix';
-import type { Matrix } from '../linalg/matrix.js';
+import type { Matrix } from '../linalg/matrix';
 
 /**
  * Eigen-decomposition of a symmetric matrix (ml-matrix, the symmetric QL algorithm of the EISPACK

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { mulberry32 } from './mulberry32.js';
+import { mulberry32 } from './mulberry32';
 
 describe('mulberry32', () => {
   it('repeats its stream for a seed and differs between seeds', () => {

@@ -1,12 +1,12 @@
 import { describe, expect, it } from 'vitest';
-import { loadHbk } from '../__fixtures__/load-fixtures.js';
-import { chiSquareQuantile } from '../distributions/quantiles.js';
-import { SingularCovarianceError } from '../errors/engine-errors.js';
-import { squaredDistance } from '../linalg/cholesky.js';
-import { mulberry32 } from '../random/mulberry32.js';
-import { fastMcd } from './fast-mcd.js';
-import { columnMeans, covariance } from './moments.js';
-import { cholesky } from '../linalg/cholesky.js';
+import { loadHbk } from '../__fixtures__/load-fixtures.mjs';
+import { chiSquareQuantile } from '../distributions/quantiles';
+import { SingularCovarianceError } from '../errors/engine-errors';
+import { squaredDistance } from '../linalg/cholesky';
+import { mulberry32 } from '../random/mulberry32';
+import { fastMcd } from './fast-mcd';
+import { columnMeans, covariance } from './moments';
+import { cholesky } from '../linalg/cholesky';
 
 const context = { group: 'hbk', variables: ['X1', 'X2', 'X3'] };
 

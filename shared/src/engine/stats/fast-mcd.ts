@@ -1,10 +1,10 @@
-import { chiSquareQuantile } from '../distributions/quantiles.js';
-import { chiSquareUpperTail } from '../distributions/upper-tails.js';
-import { InvalidInputError, SingularCovarianceError } from '../errors/engine-errors.js';
-import { cholesky, choleskyOrNull, squaredDistance, type CholeskyFactor, type CovarianceContext } from '../linalg/cholesky.js';
-import type { Matrix } from '../linalg/matrix.js';
-import { mulberry32, type RandomSource } from '../random/mulberry32.js';
-import { columnMeans, covariance } from './moments.js';
+import { chiSquareQuantile } from '../distributions/quantiles';
+import { chiSquareUpperTail } from '../distributions/upper-tails';
+import { InvalidInputError, SingularCovarianceError } from '../errors/engine-errors';
+import { cholesky, choleskyOrNull, squaredDistance, type CholeskyFactor, type CovarianceContext } from '../linalg/cholesky';
+import type { Matrix } from '../linalg/matrix';
+import { mulberry32, type RandomSource } from '../random/mulberry32';
+import { columnMeans, covariance } from './moments';
 
 /*
  * FAST-MCD (Rousseeuw & Van Driessen 1999, Technometrics 41:212): the h-subset of members whose

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
-import { GroupTooSmallError, SingularCovarianceError } from '../errors/engine-errors.js';
-import { loadHbk } from '../__fixtures__/load-fixtures.js';
-import { DEFAULT_MCD_SEED, fitGroup } from './group-model.js';
+import { GroupTooSmallError, SingularCovarianceError } from '../errors/engine-errors';
+import { loadHbk } from '../__fixtures__/load-fixtures.mjs';
+import { DEFAULT_MCD_SEED, fitGroup } from './group-model';
 
 describe('fitGroup', () => {
   it('refuses n ≤ p by name, with n and p', () => {

@@ -1,8 +1,8 @@
-import { GroupTooSmallError, SingularCovarianceError } from '../errors/engine-errors.js';
-import { cholesky, type CholeskyFactor } from '../linalg/cholesky.js';
-import { assertFiniteMatrix, type Matrix } from '../linalg/matrix.js';
-import { fastMcd, type McdResult } from './fast-mcd.js';
-import { columnMeans, covariance } from './moments.js';
+import { GroupTooSmallError, SingularCovarianceError } from '../errors/engine-errors';
+import { cholesky, type CholeskyFactor } from '../linalg/cholesky';
+import { assertFiniteMatrix, type Matrix } from '../linalg/matrix';
+import { fastMcd, type McdResult } from './fast-mcd';
+import { columnMeans, covariance } from './moments';
 
 export type CovarianceMethod = 'classic' | 'mcd';
 

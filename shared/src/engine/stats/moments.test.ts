@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
-import { columnMeans, covariance } from './moments.js';
-import { pooledCovariance } from './pooled-covariance.js';
-import { InvalidInputError } from '../errors/engine-errors.js';
+import { columnMeans, covariance } from './moments';
+import { pooledCovariance } from './pooled-covariance';
+import { InvalidInputError } from '../errors/engine-errors';
 
 describe('columnMeans and covariance', () => {
   it('match a hand computation', () => {

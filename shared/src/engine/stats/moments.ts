@@ -1,5 +1,5 @@
-import { InvalidInputError } from '../errors/engine-errors.js';
-import type { Matrix } from '../linalg/matrix.js';
+import { InvalidInputError } from '../errors/engine-errors';
+import type { Matrix } from '../linalg/matrix';
 
 /** Column means. Missing values are not accepted: the caller imputes or drops them first. */
 export function columnMeans(rows: Matrix): number[] {

@@ -1,6 +1,6 @@
-import { InvalidInputError } from '../errors/engine-errors.js';
-import type { Matrix } from '../linalg/matrix.js';
-import { columnMeans, crossProducts } from './moments.js';
+import { InvalidInputError } from '../errors/engine-errors';
+import type { Matrix } from '../linalg/matrix';
+import { columnMeans, crossProducts } from './moments';
 
 /**
  * Pooled within-group covariance Σₖ (nₖ − 1) Sₖ / (N − g), the common covariance of linear

@@ -1,6 +1,6 @@
-import { InvalidInputError } from '../errors/engine-errors.js';
-import type { Matrix } from '../linalg/matrix.js';
-import { alrTransform, clrToPivotCoordinates, clrTransform, ilrTransform, lnTransform, log10Transform } from './log-ratio.js';
+import { InvalidInputError } from '../errors/engine-errors';
+import type { Matrix } from '../linalg/matrix';
+import { alrTransform, clrToPivotCoordinates, clrTransform, ilrTransform, lnTransform, log10Transform } from './log-ratio';
 
 export const TRANSFORM_NAMES = ['none', 'log10', 'ln', 'alr', 'clr', 'ilr'] as const;
 export type TransformName = (typeof TRANSFORM_NAMES)[number];

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { InvalidInputError } from '../errors/engine-errors.js';
-import { replaceBelowDetectionLimit } from './detection-limit.js';
+import { InvalidInputError } from '../errors/engine-errors';
+import { replaceBelowDetectionLimit } from './detection-limit';
 
 describe('multiplicative replacement', () => {
   it('reproduces the worked example of METHODS.md §3 (Martín-Fernández et al. 2003)', () => {

@@ -1,4 +1,4 @@
-import { InvalidInputError } from '../errors/engine-errors.js';
+import { InvalidInputError } from '../errors/engine-errors';
 
 /**
  * A measured value, or a value reported below a detection limit ("<DL"). A zero counts as below the

@@ -1,11 +1,11 @@
 import { Matrix as MlMatrix, pseudoInverse } from 'ml-matrix';
 import { describe, expect, it } from 'vitest';
-import { squaredDistance } from '../linalg/cholesky.js';
-import { mulberry32 } from '../random/mulberry32.js';
-import { fastMcd } from '../stats/fast-mcd.js';
-import { fitGroup } from '../stats/group-model.js';
-import { columnMeans, covariance } from '../stats/moments.js';
-import { applyTransform, toDistanceCoordinates, type TransformSpec } from './apply-transform.js';
+import { squaredDistance } from '../linalg/cholesky';
+import { mulberry32 } from '../random/mulberry32';
+import { fastMcd } from '../stats/fast-mcd';
+import { fitGroup } from '../stats/group-model';
+import { columnMeans, covariance } from '../stats/moments';
+import { applyTransform, toDistanceCoordinates, type TransformSpec } from './apply-transform';
 
 // Identity from Aitchison (1986) and Egozcue et al. (2003), stated in METHODS.md §3: classical D² is
 // the same under alr (any denominator), clr (pseudo-inverse) and ilr; robust MCD distances are the

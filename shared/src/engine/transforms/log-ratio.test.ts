@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
-import { NonPositiveValueError } from '../errors/engine-errors.js';
-import { multiply, transpose } from '../linalg/matrix.js';
-import { alrTransform, clrToPivotCoordinates, clrTransform, ilrTransform, lnTransform, log10Transform, pivotBasis } from './log-ratio.js';
+import { NonPositiveValueError } from '../errors/engine-errors';
+import { multiply, transpose } from '../linalg/matrix';
+import { alrTransform, clrToPivotCoordinates, clrTransform, ilrTransform, lnTransform, log10Transform, pivotBasis } from './log-ratio';
 
 const rows = [
   [0.2, 0.3, 0.1, 0.4],

@@ -1,5 +1,5 @@
-import { InvalidInputError, NonPositiveValueError } from '../errors/engine-errors.js';
-import type { Matrix } from '../linalg/matrix.js';
+import { InvalidInputError, NonPositiveValueError } from '../errors/engine-errors';
+import type { Matrix } from '../linalg/matrix';
 
 /*
  * Log and log-ratio transforms of compositions (Aitchison 1986, The Statistical Analysis of

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { InvalidInputError } from '../errors/engine-errors.js';
-import { oxideToElementFactor, oxideToOxideFactor, oxideWtPercentToElementPpm, parseOxide } from './oxides.js';
+import { InvalidInputError } from '../errors/engine-errors';
+import { oxideToElementFactor, oxideToOxideFactor, oxideWtPercentToElementPpm, parseOxide } from './oxides';
 
 describe('oxide factors from atomic weights', () => {
   // Source: the oxide → element factor table of METHODS.md §7, from the IUPAC/CIAAW 2021 standard

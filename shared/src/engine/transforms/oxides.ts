@@ -1,4 +1,4 @@
-import { InvalidInputError } from '../errors/engine-errors.js';
+import { InvalidInputError } from '../errors/engine-errors';
 
 /**
  * Standard atomic weights, IUPAC/CIAAW 2021 (conventional values for the elements given as an

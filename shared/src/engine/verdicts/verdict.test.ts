@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { InvalidInputError } from '../errors/engine-errors.js';
-import { decideVerdict } from './verdict.js';
+import { InvalidInputError } from '../errors/engine-errors';
+import { decideVerdict } from './verdict';
 
 const groups = ['A', 'B', 'C'];
 

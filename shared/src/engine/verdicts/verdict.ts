@@ -1,4 +1,4 @@
-import { InvalidInputError } from '../errors/engine-errors.js';
+import { InvalidInputError } from '../errors/engine-errors';
 
 export type ProbabilityBasis = 'chi2' | 'hotelling';
 export type Verdict = 'assigned' | 'ambiguous' | 'unassigned';
