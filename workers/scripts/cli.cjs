@@ -9,7 +9,10 @@ const path = require('node:path');
 
 const root = path.resolve(__dirname, '..', '..');
 try {
-  execFileSync(process.execPath, [require.resolve('typescript/bin/tsc', { paths: [root] }), '-b', 'workers'], { cwd: root, stdio: 'inherit' });
+  execFileSync(process.execPath, [require.resolve('typescript/bin/tsc', { paths: [root] }), '-b', 'workers'], {
+    cwd: root,
+    stdio: 'inherit',
+  });
 } catch {
   // tsc still emits JavaScript when it reports type errors; run it only if the entry exists.
   process.stderr.write('warning: the TypeScript build of workers reported errors (see above)\n');

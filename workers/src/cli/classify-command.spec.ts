@@ -96,17 +96,7 @@ describe('classify command errors', () => {
 
   it('a non-numeric cell names the file, line and column', () => {
     const bad = writeTemporaryCsv(dir, 'bad.csv', `${header}a,G,1,2,3,4\nb,G,1,x2,3,4\n`);
-    const result = run([
-      'classify',
-      '--reference',
-      reference,
-      '--unknowns',
-      bad,
-      '--out',
-      dir,
-      '--elements',
-      'Cu,Zn,Pb,Ni',
-    ]);
+    const result = run(['classify', '--reference', bad, '--unknowns', bad, '--out', dir, '--elements', 'Cu,Zn,Pb,Ni']);
     expect(result.code).toBe(EXIT_INPUT);
     expect(result.stderr).toContain(`${bad}, line 3, column "Zn": "x2" is not a number`);
   });

@@ -28,7 +28,9 @@ export function loadPenguins() {
   const fields = ['Beak Length (mm)', 'Beak Depth (mm)', 'Flipper Length (mm)', 'Body Mass (g)'];
   const kept = records.flatMap((record) => {
     const measurements = fields.map((field) => record[field]);
-    return measurements.every((value) => typeof value === 'number') ? [{ species: String(record.Species), measurements }] : [];
+    return measurements.every((value) => typeof value === 'number')
+      ? [{ species: String(record.Species), measurements }]
+      : [];
   });
   return { all: records.length, kept };
 }

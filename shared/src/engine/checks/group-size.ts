@@ -18,7 +18,13 @@ export interface GroupSizeAssessment {
  * are a recommendation of common practice, not of a single source; below it the assessment warns, and
  * it shows the exact chi-square false-rejection rate, the quantitative reason.
  */
-export function assessGroupSize(group: string, n: number, p: number, alpha: number, recommendedRatio = 5): GroupSizeAssessment {
+export function assessGroupSize(
+  group: string,
+  n: number,
+  p: number,
+  alpha: number,
+  recommendedRatio = 5,
+): GroupSizeAssessment {
   const messages: string[] = [];
   if (n <= p) {
     messages.push(`n = ${n} ≤ p = ${p}: the covariance is singular; the group cannot be used`);
@@ -28,7 +34,9 @@ export function assessGroupSize(group: string, n: number, p: number, alpha: numb
   if (n <= p + 1) messages.push(`n = ${n} = p + 1: members cannot be tested against their own group (needs n > p + 1)`);
   if (n < recommendedRatio * p) messages.push(`n = ${n} is below ${recommendedRatio}·p = ${recommendedRatio * p}`);
   if (rate > 2 * alpha) {
-    messages.push(`the chi-square rule would reject ${(100 * rate).toFixed(1)} % of true new members instead of ${100 * alpha} %`);
+    messages.push(
+      `the chi-square rule would reject ${(100 * rate).toFixed(1)} % of true new members instead of ${100 * alpha} %`,
+    );
   }
   return { group, n, p, status: messages.length > 0 ? 'warning' : 'ok', messages, chiSquareFalseRejectionRate: rate };
 }

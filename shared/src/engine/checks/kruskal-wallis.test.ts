@@ -17,15 +17,37 @@ describe('kruskalWallis', () => {
 
   it('without ties H equals the textbook formula computed by hand', () => {
     // Ranks: group 1 {1, 2, 3}, group 2 {4, 5, 6}; H = 12/(6·7)·(36/3 + 225/3) − 21 = 27/7.
-    expect(kruskalWallis([[1, 2, 3], [4, 5, 6]]).h).toBeCloseTo(27 / 7, 13);
+    expect(
+      kruskalWallis([
+        [1, 2, 3],
+        [4, 5, 6],
+      ]).h,
+    ).toBeCloseTo(27 / 7, 13);
   });
 
   it('refuses all-equal values instead of dividing by zero', () => {
-    expect(() => kruskalWallis([[1, 1], [1, 1]])).toThrow(InvalidInputError);
+    expect(() =>
+      kruskalWallis([
+        [1, 1],
+        [1, 1],
+      ]),
+    ).toThrow(InvalidInputError);
   });
 
   it('runs per variable', () => {
-    const rows = kruskalWallisByVariable([[[1, 5], [2, 6]], [[3, 1], [4, 2]]], ['Cu', 'Zn']);
+    const rows = kruskalWallisByVariable(
+      [
+        [
+          [1, 5],
+          [2, 6],
+        ],
+        [
+          [3, 1],
+          [4, 2],
+        ],
+      ],
+      ['Cu', 'Zn'],
+    );
     expect(rows.map((r) => r.variable)).toEqual(['Cu', 'Zn']);
     expect(rows[0].h).toBeCloseTo(rows[1].h, 14);
   });

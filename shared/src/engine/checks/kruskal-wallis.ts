@@ -20,12 +20,13 @@ export function kruskalWallis(groups: readonly (readonly number[])[]): KruskalWa
     throw new InvalidInputError('Kruskal–Wallis needs at least two non-empty groups');
   }
   const values = groups.flatMap((g, k) => g.map((value) => ({ value, k })));
-  if (values.some(({ value }) => !Number.isFinite(value))) throw new InvalidInputError('Kruskal–Wallis needs finite values');
+  if (values.some(({ value }) => !Number.isFinite(value)))
+    throw new InvalidInputError('Kruskal–Wallis needs finite values');
   values.sort((a, b) => a.value - b.value);
   const n = values.length;
   const rankSums = new Array<number>(groups.length).fill(0);
   let tieTerm = 0;
-  for (let start = 0; start < n; ) {
+  for (let start = 0; start < n;) {
     let end = start;
     while (end + 1 < n && values[end + 1].value === values[start].value) end++;
     const midRank = (start + end) / 2 + 1;
@@ -43,6 +44,12 @@ export function kruskalWallis(groups: readonly (readonly number[])[]): KruskalWa
 }
 
 /** H for each variable (column) across groups of rows. */
-export function kruskalWallisByVariable(groups: readonly Matrix[], variables: readonly string[]): (KruskalWallis & { variable: string })[] {
-  return variables.map((variable, j) => ({ variable, ...kruskalWallis(groups.map((rows) => rows.map((row) => row[j]))) }));
+export function kruskalWallisByVariable(
+  groups: readonly Matrix[],
+  variables: readonly string[],
+): (KruskalWallis & { variable: string })[] {
+  return variables.map((variable, j) => ({
+    variable,
+    ...kruskalWallis(groups.map((rows) => rows.map((row) => row[j]))),
+  }));
 }

@@ -18,7 +18,11 @@ describe('leaveOneOutCheck on iris', () => {
   it('matches a brute-force refit verdict for every member', () => {
     check.members.forEach((member) => {
       const k = names.indexOf(member.group);
-      const refit = fitGroup(member.group, rows[k].filter((_, i) => i !== member.index), variables);
+      const refit = fitGroup(
+        member.group,
+        rows[k].filter((_, i) => i !== member.index),
+        variables,
+      );
       const row = rows[k][member.index];
       const brute = squaredDistance(refit.cholesky.lower, row, refit.mean);
       expect(Math.abs(member.d2LeaveOneOut - brute) / brute).toBeLessThan(1e-9);
@@ -30,7 +34,10 @@ describe('leaveOneOutCheck on iris', () => {
     expect(check.members).toHaveLength(150);
     const own = names.reduce((s, name) => s + check.confusion[name][name], 0);
     expect(own).toBe(check.returnedToOwnGroup);
-    const total = Object.values(check.confusion).reduce((s, row) => s + Object.values(row).reduce((a, b) => a + b, 0), 0);
+    const total = Object.values(check.confusion).reduce(
+      (s, row) => s + Object.values(row).reduce((a, b) => a + b, 0),
+      0,
+    );
     expect(total).toBe(150);
     // Setosa is far from the other two species: none of its members lands elsewhere.
     expect(check.confusion.setosa.versicolor + check.confusion.setosa.virginica).toBe(0);

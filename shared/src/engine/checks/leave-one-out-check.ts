@@ -36,13 +36,20 @@ export interface LeaveOneOutCheck {
  * closed form applies with n = support size to members in the support; members outside it did not
  * enter the estimate and are tested as new observations already.
  */
-export function leaveOneOutCheck(models: readonly GroupModel[], groupRows: readonly Matrix[], basis: ProbabilityBasis, alpha: number): LeaveOneOutCheck {
-  if (models.length !== groupRows.length) throw new InvalidInputError('one set of member rows is needed per group model');
+export function leaveOneOutCheck(
+  models: readonly GroupModel[],
+  groupRows: readonly Matrix[],
+  basis: ProbabilityBasis,
+  alpha: number,
+): LeaveOneOutCheck {
+  if (models.length !== groupRows.length)
+    throw new InvalidInputError('one set of member rows is needed per group model');
   const names = models.map((m) => m.name);
   const p = models[0]?.mean.length ?? 0;
   const members: MemberCheck[] = [];
   const confusion: Record<string, Record<string, number>> = {};
-  for (const name of names) confusion[name] = Object.fromEntries([...names, 'ambiguous', 'unassigned'].map((key) => [key, 0]));
+  for (const name of names)
+    confusion[name] = Object.fromEntries([...names, 'ambiguous', 'unassigned'].map((key) => [key, 0]));
   models.forEach((own, k) => {
     groupRows[k].forEach((row, index) => {
       const d2 = models.map((m) => squaredDistance(m.cholesky.lower, row, m.mean));
@@ -51,7 +58,9 @@ export function leaveOneOutCheck(models: readonly GroupModel[], groupRows: reado
       const ownSize = inEstimate ? own.effectiveN - 1 : own.effectiveN;
       const distances = d2.map((value, j) => (j === k ? d2LeaveOneOut : value));
       const pChi2 = distances.map((value) => pChiSquare(value, p));
-      const pHot = distances.map((value, j) => pHotelling(value, j === k ? ownSize : models[j].effectiveN, p, models[j].name));
+      const pHot = distances.map((value, j) =>
+        pHotelling(value, j === k ? ownSize : models[j].effectiveN, p, models[j].name),
+      );
       const verdict = decideVerdict(names, basis === 'chi2' ? pChi2 : pHot, distances, alpha);
       const outcome: LeaveOneOutOutcome =
         verdict.verdict === 'assigned' ? (verdict.group === own.name ? 'own_group' : 'other_group') : verdict.verdict;

@@ -28,8 +28,26 @@ describe('twoSampleHotelling', () => {
   });
 
   it('refuses groups too small for the F law and lists every pair', () => {
-    expect(() => twoSampleHotelling('a', [[1, 2]], 'b', [[2, 1], [3, 3]], ['u', 'v'])).toThrow(GroupTooSmallError);
-    const pairs = pairwiseHotelling(['setosa', 'versicolor', 'virginica'].map((name) => ({ name, rows: rowsOf(name) })), variables);
-    expect(pairs.map((r) => `${r.groupA}/${r.groupB}`)).toEqual(['setosa/versicolor', 'setosa/virginica', 'versicolor/virginica']);
+    expect(() =>
+      twoSampleHotelling(
+        'a',
+        [[1, 2]],
+        'b',
+        [
+          [2, 1],
+          [3, 3],
+        ],
+        ['u', 'v'],
+      ),
+    ).toThrow(GroupTooSmallError);
+    const pairs = pairwiseHotelling(
+      ['setosa', 'versicolor', 'virginica'].map((name) => ({ name, rows: rowsOf(name) })),
+      variables,
+    );
+    expect(pairs.map((r) => `${r.groupA}/${r.groupB}`)).toEqual([
+      'setosa/versicolor',
+      'setosa/virginica',
+      'versicolor/virginica',
+    ]);
   });
 });

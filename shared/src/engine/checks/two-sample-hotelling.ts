@@ -20,7 +20,13 @@ export interface TwoSampleHotelling {
  * F = (n₁+n₂−p−1)/(p(n₁+n₂−2)) · T² ~ F(p, n₁+n₂−p−1) (METHODS.md §5). Tests whether two groups share
  * a mean, assuming a common covariance.
  */
-export function twoSampleHotelling(groupA: string, a: Matrix, groupB: string, b: Matrix, variables: readonly string[]): TwoSampleHotelling {
+export function twoSampleHotelling(
+  groupA: string,
+  a: Matrix,
+  groupB: string,
+  b: Matrix,
+  variables: readonly string[],
+): TwoSampleHotelling {
   const p = variables.length;
   assertFiniteMatrix(a, `group "${groupA}"`, p);
   assertFiniteMatrix(b, `group "${groupB}"`, p);
@@ -36,6 +42,11 @@ export function twoSampleHotelling(groupA: string, a: Matrix, groupB: string, b:
 }
 
 /** Every pair of groups, in the order given (a before b). */
-export function pairwiseHotelling(groups: readonly { name: string; rows: Matrix }[], variables: readonly string[]): TwoSampleHotelling[] {
-  return groups.flatMap((a, i) => groups.slice(i + 1).map((b) => twoSampleHotelling(a.name, a.rows, b.name, b.rows, variables)));
+export function pairwiseHotelling(
+  groups: readonly { name: string; rows: Matrix }[],
+  variables: readonly string[],
+): TwoSampleHotelling[] {
+  return groups.flatMap((a, i) =>
+    groups.slice(i + 1).map((b) => twoSampleHotelling(a.name, a.rows, b.name, b.rows, variables)),
+  );
 }

@@ -22,7 +22,11 @@ describe('wilksLambda', () => {
   });
 
   it('is 1 when the groups share a mean exactly', () => {
-    const a = [[0, 1], [2, 0], [1, 2]];
+    const a = [
+      [0, 1],
+      [2, 0],
+      [1, 2],
+    ];
     const b = a.map(([u, v]) => [2 - u, 2 - v]);
     expect(wilksLambda([a, b], ['u', 'v']).lambda).toBeCloseTo(1, 14);
   });

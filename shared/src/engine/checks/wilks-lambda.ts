@@ -13,7 +13,11 @@ export interface WilksLambda {
 }
 
 /** Within-group SSCP W = Σₖ Σᵢ (x − x̄ₖ)(x − x̄ₖ)ᵀ and between-group B = T − W, T about the grand mean. */
-export function scatterMatrices(groups: readonly Matrix[]): { within: number[][]; between: number[][]; total: number[][] } {
+export function scatterMatrices(groups: readonly Matrix[]): {
+  within: number[][];
+  between: number[][];
+  total: number[][];
+} {
   const all = groups.flat();
   const total = crossProducts(all, columnMeans(all));
   const p = total.length;
@@ -35,10 +39,12 @@ export function wilksLambda(groups: readonly Matrix[], variables: readonly strin
   const n = groups.reduce((s, g) => s + g.length, 0);
   const p = variables.length;
   const g = groups.length;
-  if (g < 2 || n - g < p) throw new InvalidInputError(`Wilks' Λ needs at least two groups and N − g ≥ p (N = ${n}, g = ${g}, p = ${p})`);
+  if (g < 2 || n - g < p)
+    throw new InvalidInputError(`Wilks' Λ needs at least two groups and N − g ≥ p (N = ${n}, g = ${g}, p = ${p})`);
   const { within, total } = scatterMatrices(groups);
   const logLambda =
-    cholesky(within, { group: 'within-group scatter', variables }).logDet - cholesky(total, { group: 'total scatter', variables }).logDet;
+    cholesky(within, { group: 'within-group scatter', variables }).logDet -
+    cholesky(total, { group: 'total scatter', variables }).logDet;
   const chi2 = -(n - 1 - (p + g) / 2) * logLambda;
   const df = p * (g - 1);
   return { lambda: Math.exp(logLambda), chi2, df, p: chiSquareUpperTail(Math.max(chi2, 0), df) };

@@ -30,7 +30,11 @@ describe('classifySamples on Palmer penguins (vega-datasets; Gorman, Williams & 
 
   it('sanity: at least 97 % of penguins have their own species as best group', () => {
     const models = species.map((name) => fitGroup(name, rowsOf(name), variables));
-    const results = classifySamples(models, kept.map((p) => p.measurements), { basis: 'hotelling', alpha: 0.05 });
+    const results = classifySamples(
+      models,
+      kept.map((p) => p.measurements),
+      { basis: 'hotelling', alpha: 0.05 },
+    );
     const correct = results.filter((r, i) => r.verdict.group === kept[i].species).length;
     expect(correct / kept.length).toBeGreaterThan(0.97);
   });
@@ -41,7 +45,13 @@ describe('classifySamples', () => {
   const classes = getClasses();
   const names = [...new Set(classes)];
   const variables = ['sl', 'sw', 'pl', 'pw'];
-  const models = names.map((name) => fitGroup(name, x.filter((_, i) => classes[i] === name), variables));
+  const models = names.map((name) =>
+    fitGroup(
+      name,
+      x.filter((_, i) => classes[i] === name),
+      variables,
+    ),
+  );
 
   it('reports the same D² and probabilities as the single-pair functions', () => {
     const [result] = classifySamples(models, [[6.1, 2.9, 4.7, 1.4]], { basis: 'chi2', alpha: 0.05 });

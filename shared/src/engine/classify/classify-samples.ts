@@ -19,7 +19,11 @@ export interface ClassifyOptions {
 }
 
 /** Distances, both membership probabilities and the verdict for every sample against every group. */
-export function classifySamples(models: readonly GroupModel[], samples: Matrix, options: ClassifyOptions): SampleClassification[] {
+export function classifySamples(
+  models: readonly GroupModel[],
+  samples: Matrix,
+  options: ClassifyOptions,
+): SampleClassification[] {
   const packed = packGroups(models);
   assertFiniteMatrix(samples, 'unknown samples', packed.p);
   if (samples.length === 0) throw new InvalidInputError('there are no samples to classify');

@@ -16,7 +16,12 @@ describe('distanceContributions', () => {
   });
 
   it('the first contribution is the standardised squared deviation of the first variable', () => {
-    const rows = [[1, 5], [2, 3], [4, 4], [5, 9]];
+    const rows = [
+      [1, 5],
+      [2, 3],
+      [4, 4],
+      [5, 9],
+    ];
     const model = fitGroup('g', rows, ['a', 'b']);
     const [first] = distanceContributions(model, [6, 0]);
     expect(first).toBeCloseTo((6 - model.mean[0]) ** 2 / model.covariance[0][0], 13);

@@ -6,7 +6,14 @@ import { GroupTooSmallError, InvalidInputError } from '../errors/engine-errors';
 import { squaredDistance } from '../linalg/cholesky';
 import { mulberry32 } from '../random/mulberry32';
 import { fitGroup } from '../stats/group-model';
-import { leaveOneOutDistance, newObservationF, pChiSquare, pHotelling, pHotellingLeaveOneOut, pMemberBeta } from './membership';
+import {
+  leaveOneOutDistance,
+  newObservationF,
+  pChiSquare,
+  pHotelling,
+  pHotellingLeaveOneOut,
+  pMemberBeta,
+} from './membership';
 
 const variables = ['a', 'b', 'c', 'd'];
 
@@ -52,7 +59,11 @@ describe('leave-one-out without refitting', () => {
   it('matches brute-force refits without each member to 1e-10', () => {
     rows.forEach((row, i) => {
       const full = squaredDistance(model.cholesky.lower, row, model.mean);
-      const refit = fitGroup('g', rows.filter((_, k) => k !== i), variables);
+      const refit = fitGroup(
+        'g',
+        rows.filter((_, k) => k !== i),
+        variables,
+      );
       const brute = squaredDistance(refit.cholesky.lower, row, refit.mean);
       expect(Math.abs(leaveOneOutDistance(full, n, 4) - brute) / brute).toBeLessThan(1e-10);
       const bruteP = pHotelling(brute, n - 1, 4);
@@ -83,7 +94,11 @@ describe('calibration by seeded simulation (n = 12, p = 4, α = 0.05)', () => {
   for (let t = 0; t < trials; t++) {
     const members = Array.from({ length: 12 }, () => variables.map(() => random.normal()));
     const model = fitGroup('g', members, variables);
-    const d2 = squaredDistance(model.cholesky.lower, variables.map(() => random.normal()), model.mean);
+    const d2 = squaredDistance(
+      model.cholesky.lower,
+      variables.map(() => random.normal()),
+      model.mean,
+    );
     if (pHotelling(d2, 12, 4) < 0.05) hotellingRejects++;
     if (d2 > chiCut) chiRejects++;
   }

@@ -41,7 +41,8 @@ export function pMemberBeta(d2: number, n: number, p: number, group = 'group'): 
   assertDistance(d2);
   if (!(n > p + 1)) throw new GroupTooSmallError(group, n, p, p + 2, 'the in-sample Beta distribution');
   const b = (n * d2) / ((n - 1) * (n - 1));
-  if (b > 1 + 1e-12) throw new InvalidInputError(`D² = ${d2} exceeds (n−1)²/n = ${((n - 1) * (n - 1)) / n}: not a member of "${group}"`);
+  if (b > 1 + 1e-12)
+    throw new InvalidInputError(`D² = ${d2} exceeds (n−1)²/n = ${((n - 1) * (n - 1)) / n}: not a member of "${group}"`);
   return betaUpperTail(Math.min(b, 1), p / 2, (n - p - 1) / 2);
 }
 
@@ -55,7 +56,9 @@ export function leaveOneOutDistance(d2: number, n: number, p: number, group = 'g
   if (!(n - 1 > p)) throw new GroupTooSmallError(group, n, p, p + 2, 'leave-one-out distances');
   const room = (n - 1) * (n - 1) - n * d2;
   if (!(room > 0)) {
-    throw new InvalidInputError(`D² = ${d2} reaches (n−1)²/n: removing this member leaves "${group}" with a singular covariance`);
+    throw new InvalidInputError(
+      `D² = ${d2} reaches (n−1)²/n: removing this member leaves "${group}" with a singular covariance`,
+    );
   }
   return (n * n * (n - 2) * d2) / ((n - 1) * room);
 }

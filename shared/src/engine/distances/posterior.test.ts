@@ -22,10 +22,19 @@ describe('posteriorProbabilities', () => {
     const species = getClasses();
     const names = [...new Set(species)];
     const variables = ['sepal length', 'sepal width', 'petal length', 'petal width'];
-    const models = names.map((name) => fitGroup(name, x.filter((_, i) => species[i] === name), variables));
+    const models = names.map((name) =>
+      fitGroup(
+        name,
+        x.filter((_, i) => species[i] === name),
+        variables,
+      ),
+    );
     const wrong = x.flatMap((row, i) => {
       const d2 = models.map((m) => squaredDistance(m.cholesky.lower, row, m.mean));
-      const posterior = posteriorProbabilities(d2, models.map((m) => m.cholesky.logDet));
+      const posterior = posteriorProbabilities(
+        d2,
+        models.map((m) => m.cholesky.logDet),
+      );
       const best = posterior.indexOf(Math.max(...posterior));
       return names[best] === species[i] ? [] : [i + 1];
     });

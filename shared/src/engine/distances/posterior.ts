@@ -6,7 +6,11 @@ import { InvalidInputError } from '../errors/engine-errors';
  * (METHODS.md §2). Evaluated by log-sum-exp so far samples do not underflow to 0/0. Posteriors always
  * sum to 1, even for a sample that fits no group: show them beside the typicality probabilities only.
  */
-export function posteriorProbabilities(d2: readonly number[], logDets: readonly number[], priors?: readonly number[]): number[] {
+export function posteriorProbabilities(
+  d2: readonly number[],
+  logDets: readonly number[],
+  priors?: readonly number[],
+): number[] {
   const g = d2.length;
   if (logDets.length !== g || (priors && priors.length !== g) || g === 0) {
     throw new InvalidInputError('posterior probabilities need one D², one log-determinant and one prior per group');

@@ -1,6 +1,11 @@
 import { describe, expect, it } from 'vitest';
 import { mulberry32 } from '../random/mulberry32';
-import { betaUpperTailFor, betaUpperTailIntegerA, chiSquareUpperTailEvenDf, chiSquareUpperTailFor } from './fast-upper-tails';
+import {
+  betaUpperTailFor,
+  betaUpperTailIntegerA,
+  chiSquareUpperTailEvenDf,
+  chiSquareUpperTailFor,
+} from './fast-upper-tails';
 import { betaUpperTail, chiSquareUpperTail } from './upper-tails';
 
 const relative = (a: number, b: number): number => Math.abs(a - b) / Math.abs(b);
@@ -18,7 +23,11 @@ describe('finite series against the general incomplete gamma / beta functions', 
   });
 
   it('beta with integer a matches the closed form for a = 2 to 1e-14: (1 − x)ᵇ (1 + b·x)', () => {
-    for (const [x, b] of [[0.25, 40.5], [0.6, 3.5], [0.05, 488]]) {
+    for (const [x, b] of [
+      [0.25, 40.5],
+      [0.6, 3.5],
+      [0.05, 488],
+    ]) {
       const exact = Math.pow(1 - x, b) * (1 + b * x);
       expect(relative(betaUpperTailIntegerA(x, 1 - x, 2, b), exact)).toBeLessThan(1e-14);
     }

@@ -38,7 +38,16 @@ describe('chiSquareUpperTail', () => {
 
 describe('fUpperTail', () => {
   it('matches jstat over a grid of (d1, d2, f)', () => {
-    for (const [d1, d2] of [[1, 5], [2, 10], [3, 10], [4, 8], [4, 95], [5, 20], [24, 7.5], [24, 200]]) {
+    for (const [d1, d2] of [
+      [1, 5],
+      [2, 10],
+      [3, 10],
+      [4, 8],
+      [4, 95],
+      [5, 20],
+      [24, 7.5],
+      [24, 200],
+    ]) {
       for (const f of [0.05, 0.3, 1, 2, 3.7, 6, 12]) {
         const reference = 1 - jStat.centralF.cdf(f, d1, d2);
         if (reference > 1e-6) expect(relative(fUpperTail(f, d1, d2), reference)).toBeLessThan(JSTAT_TOLERANCE);
@@ -54,7 +63,14 @@ describe('fUpperTail', () => {
 
 describe('betaUpperTail', () => {
   it('matches jstat over a grid', () => {
-    for (const [a, b] of [[0.5, 0.5], [1, 3], [2, 2], [2, 4.5], [12, 3.5], [15, 40]]) {
+    for (const [a, b] of [
+      [0.5, 0.5],
+      [1, 3],
+      [2, 2],
+      [2, 4.5],
+      [12, 3.5],
+      [15, 40],
+    ]) {
       for (const x of [0.01, 0.1, 0.3, 0.5, 0.7, 0.9]) {
         const reference = 1 - jStat.beta.cdf(x, a, b);
         if (reference > 1e-6) expect(relative(betaUpperTail(x, a, b), reference)).toBeLessThan(JSTAT_TOLERANCE);

@@ -23,9 +23,7 @@ export class GroupTooSmallError extends EngineError {
     readonly minimum: number,
     purpose: string,
   ) {
-    super(
-      `group "${group}" has n = ${n} members on p = ${p} variables; ${purpose} needs at least ${minimum} members`,
-    );
+    super(`group "${group}" has n = ${n} members on p = ${p} variables; ${purpose} needs at least ${minimum} members`);
   }
 }
 

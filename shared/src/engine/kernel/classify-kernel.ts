@@ -10,7 +10,11 @@ export interface KernelOutput {
 }
 
 export function allocateKernelOutput(rows: number, groups: number): KernelOutput {
-  return { d2: new Float64Array(rows * groups), pChi2: new Float64Array(rows * groups), pHotelling: new Float64Array(rows * groups) };
+  return {
+    d2: new Float64Array(rows * groups),
+    pChi2: new Float64Array(rows * groups),
+    pHotelling: new Float64Array(rows * groups),
+  };
 }
 
 interface TailEvaluators {
@@ -37,7 +41,16 @@ function evaluatorsFor(groups: PackedGroups): TailEvaluators {
  * factor (no inverse). Four rows share each load of L and give the processor four independent chains
  * of additions: one row at a time is bound by floating-point latency and runs at less than half speed.
  */
-function distancesOfFour(groups: PackedGroups, data: Float64Array, first: number, k: number, z: Float64Array, d2: Float64Array, at: number, g: number): void {
+function distancesOfFour(
+  groups: PackedGroups,
+  data: Float64Array,
+  first: number,
+  k: number,
+  z: Float64Array,
+  d2: Float64Array,
+  at: number,
+  g: number,
+): void {
   const { p, means, lowers, inverseDiagonals } = groups;
   const x0 = first * p;
   const x1 = x0 + p;
@@ -109,7 +122,14 @@ function distanceOfOne(groups: PackedGroups, data: Float64Array, i: number, k: n
  * P[F(p, n−p) > F] is the upper Beta tail at x = pF/(pF + d₂), y = d₂/(pF + d₂) (d₂ = n − p), so no
  * 1 − cdf is ever formed. Memory: 4p numbers of scratch, whatever the number of rows.
  */
-export function classifyBlock(groups: PackedGroups, data: Float64Array, rowStart: number, rowEnd: number, out: KernelOutput, tails = evaluatorsFor(groups)): void {
+export function classifyBlock(
+  groups: PackedGroups,
+  data: Float64Array,
+  rowStart: number,
+  rowEnd: number,
+  out: KernelOutput,
+  tails = evaluatorsFor(groups),
+): void {
   const g = groups.names.length;
   const rows = rowEnd - rowStart;
   if (data.length < rowEnd * groups.p || out.d2.length < rows * g) {
@@ -145,7 +165,8 @@ export function classifyInBlocks(
   rowStart = 0,
   rowEnd = data.length / groups.p,
 ): void {
-  if (!Number.isInteger(rowEnd)) throw new InvalidInputError(`data length ${data.length} is not a multiple of p = ${groups.p}`);
+  if (!Number.isInteger(rowEnd))
+    throw new InvalidInputError(`data length ${data.length} is not a multiple of p = ${groups.p}`);
   const tails = evaluatorsFor(groups);
   const out = allocateKernelOutput(Math.min(blockRows, rowEnd - rowStart), groups.names.length);
   for (let first = rowStart; first < rowEnd; first += blockRows) {

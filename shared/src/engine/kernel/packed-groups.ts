@@ -28,8 +28,10 @@ export function packGroups(models: readonly GroupModel[]): PackedGroups {
   const inverseDiagonals = new Float64Array(g * p);
   const sizes = new Float64Array(g);
   models.forEach((model, k) => {
-    if (model.mean.length !== p) throw new InvalidInputError(`group "${model.name}" has ${model.mean.length} variables, expected ${p}`);
-    if (!(model.effectiveN > p)) throw new GroupTooSmallError(model.name, model.effectiveN, p, p + 1, 'the new-observation F distribution');
+    if (model.mean.length !== p)
+      throw new InvalidInputError(`group "${model.name}" has ${model.mean.length} variables, expected ${p}`);
+    if (!(model.effectiveN > p))
+      throw new GroupTooSmallError(model.name, model.effectiveN, p, p + 1, 'the new-observation F distribution');
     means.set(model.mean, k * p);
     model.cholesky.lower.forEach((row, j) => {
       lowers.set(row, (k * p + j) * p);

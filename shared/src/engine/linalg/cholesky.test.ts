@@ -73,7 +73,12 @@ describe('cholesky', () => {
   });
 
   it('choleskyOrNull returns null instead of throwing', () => {
-    expect(choleskyOrNull([[1, 1], [1, 1]])).toBeNull();
+    expect(
+      choleskyOrNull([
+        [1, 1],
+        [1, 1],
+      ]),
+    ).toBeNull();
   });
 });
 

@@ -15,7 +15,9 @@ describe('canonicalVariates on iris', () => {
 
   it('eigenvalues equal those of the non-symmetric W⁻¹B (ml-matrix general eigen-solver)', () => {
     const { within, between } = scatterMatrices(groups);
-    const reference = new EigenvalueDecomposition(solve(new Matrix(within), new Matrix(between))).realEigenvalues.sort((a, b) => b - a);
+    const reference = new EigenvalueDecomposition(solve(new Matrix(within), new Matrix(between))).realEigenvalues.sort(
+      (a, b) => b - a,
+    );
     result.eigenvalues.forEach((value, c) => expect(value).toBeCloseTo(reference[c], 9));
   });
 
@@ -26,7 +28,8 @@ describe('canonicalVariates on iris', () => {
 
   it('scores have unit pooled within-group variance and the axes are W-orthogonal', () => {
     const pooled = pooledCovariance(groups);
-    const quad = (a: number[], b: number[]) => a.reduce((s, ai, j) => s + ai * pooled[j].reduce((t, v, k) => t + v * b[k], 0), 0);
+    const quad = (a: number[], b: number[]) =>
+      a.reduce((s, ai, j) => s + ai * pooled[j].reduce((t, v, k) => t + v * b[k], 0), 0);
     const [a1, a2] = result.coefficients;
     expect(quad(a1, a1)).toBeCloseTo(1, 10);
     expect(quad(a2, a2)).toBeCloseTo(1, 10);

@@ -22,7 +22,9 @@ export function canonicalVariates(groups: readonly Matrix[], variables: readonly
   const n = groups.reduce((s, g) => s + g.length, 0);
   const p = variables.length;
   if (groups.length < 2 || n - groups.length < p) {
-    throw new InvalidInputError(`canonical variates need two or more groups and N − g ≥ p (N = ${n}, g = ${groups.length}, p = ${p})`);
+    throw new InvalidInputError(
+      `canonical variates need two or more groups and N − g ≥ p (N = ${n}, g = ${groups.length}, p = ${p})`,
+    );
   }
   const { within, between } = scatterMatrices(groups);
   const { lower } = cholesky(within, { group: 'within-group scatter', variables });

@@ -8,7 +8,11 @@ export interface ProjectedGroup {
 }
 
 /** A group's mean A·x̄ and covariance A·S·Aᵀ in a 2-D projection whose two rows are the axes A. */
-export function projectGroup(mean: readonly number[], covariance: Matrix, axes: readonly [readonly number[], readonly number[]]): ProjectedGroup {
+export function projectGroup(
+  mean: readonly number[],
+  covariance: Matrix,
+  axes: readonly [readonly number[], readonly number[]],
+): ProjectedGroup {
   const p = mean.length;
   if (axes.some((axis) => axis.length !== p)) throw new InvalidInputError(`projection axes must have ${p} entries`);
   const dot = (a: readonly number[], b: readonly number[]) => a.reduce((s, v, j) => s + v * b[j], 0);
@@ -42,8 +46,12 @@ export interface EllipseOptions {
  * Outline of the ellipse {y : (y − m)ᵀ C⁻¹ (y − m) = q}: centre m, axes along the eigenvectors of the
  * 2×2 covariance C, half-lengths √(λ·q). Returned as closed x, y arrays (first point repeated last).
  */
-export function confidenceEllipse(group: ProjectedGroup, options: EllipseOptions): { x: number[]; y: number[]; q: number } {
-  if (!(options.level > 0 && options.level < 1)) throw new InvalidInputError(`level must lie in (0, 1), got ${options.level}`);
+export function confidenceEllipse(
+  group: ProjectedGroup,
+  options: EllipseOptions,
+): { x: number[]; y: number[]; q: number } {
+  if (!(options.level > 0 && options.level < 1))
+    throw new InvalidInputError(`level must lie in (0, 1), got ${options.level}`);
   let q: number;
   if (options.basis === 'chi2') {
     q = chiSquareQuantile(options.level, 2);

@@ -17,7 +17,9 @@ describe('principalComponents against ml-pca on iris', () => {
     const eigenvalues = reference.getEigenvalues();
     ours.variances.forEach((value, c) => expect(value).toBeCloseTo(eigenvalues[c], 9));
     const loadings = reference.getLoadings().to2DArray();
-    ours.loadings.forEach((vector, c) => vector.forEach((w, j) => expect(Math.abs(w)).toBeCloseTo(Math.abs(loadings[c][j]), 9)));
+    ours.loadings.forEach((vector, c) =>
+      vector.forEach((w, j) => expect(Math.abs(w)).toBeCloseTo(Math.abs(loadings[c][j]), 9)),
+    );
   });
 
   it('scores have the component variances and are uncorrelated', () => {

@@ -21,7 +21,10 @@ export interface PrincipalComponents {
  * of the covariance matrix, or of the correlation matrix when variables have different units. A
  * constant variable is refused for 'correlation' (its standard deviation is 0).
  */
-export function principalComponents(rows: Matrix, basis: 'covariance' | 'correlation' = 'covariance'): PrincipalComponents {
+export function principalComponents(
+  rows: Matrix,
+  basis: 'covariance' | 'correlation' = 'covariance',
+): PrincipalComponents {
   const p = assertFiniteMatrix(rows, 'PCA input');
   if (rows.length < 2) throw new InvalidInputError('PCA needs at least two rows');
   const centre = columnMeans(rows);
@@ -38,5 +41,12 @@ export function principalComponents(rows: Matrix, basis: 'covariance' | 'correla
     const standardised = row.map((value, j) => (value - centre[j]) / scale[j]);
     return vectors.map((vector) => vector.reduce((s, w, j) => s + w * standardised[j], 0));
   });
-  return { centre, scale, variances, explainedVarianceRatio: variances.map((v) => v / total), loadings: vectors.slice(0, p), scores };
+  return {
+    centre,
+    scale,
+    variances,
+    explainedVarianceRatio: variances.map((v) => v / total),
+    loadings: vectors.slice(0, p),
+    scores,
+  };
 }

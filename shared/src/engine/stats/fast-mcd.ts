@@ -1,7 +1,13 @@
 import { chiSquareQuantile } from '../distributions/quantiles';
 import { chiSquareUpperTail } from '../distributions/upper-tails';
 import { InvalidInputError, SingularCovarianceError } from '../errors/engine-errors';
-import { cholesky, choleskyOrNull, squaredDistance, type CholeskyFactor, type CovarianceContext } from '../linalg/cholesky';
+import {
+  cholesky,
+  choleskyOrNull,
+  squaredDistance,
+  type CholeskyFactor,
+  type CovarianceContext,
+} from '../linalg/cholesky';
 import type { Matrix } from '../linalg/matrix';
 import { mulberry32, type RandomSource } from '../random/mulberry32';
 import { columnMeans, covariance } from './moments';
@@ -76,10 +82,19 @@ function exactFitError(context: CovarianceContext, h: number): SingularCovarianc
  * One C-step on `pool`: the h members of the pool closest to the candidate. A singular h-subset is the
  * exact-fit case of the paper (h members on a hyperplane), reported instead of skipped.
  */
-function cStep(rows: Matrix, pool: readonly number[], h: number, candidate: Candidate, context: CovarianceContext): Candidate {
+function cStep(
+  rows: Matrix,
+  pool: readonly number[],
+  h: number,
+  candidate: Candidate,
+  context: CovarianceContext,
+): Candidate {
   const d2 = pool.map((i) => squaredDistance(candidate.factor.lower, rows[i], candidate.mean));
   const order = pool.map((_, k) => k).sort((a, b) => d2[a] - d2[b]);
-  const next = fitSubset(rows, order.slice(0, h).map((k) => pool[k]));
+  const next = fitSubset(
+    rows,
+    order.slice(0, h).map((k) => pool[k]),
+  );
   if (!next) throw exactFitError(context, h);
   return next;
 }
@@ -88,7 +103,14 @@ function cStep(rows: Matrix, pool: readonly number[], h: number, candidate: Cand
  * C-steps until the determinant stops falling. The first step is always taken: the start is a
  * (p+1)-subset or an h-subset of another pool, so its determinant is not comparable.
  */
-function iterateCSteps(rows: Matrix, pool: readonly number[], h: number, start: Candidate, steps: number, context: CovarianceContext): Candidate {
+function iterateCSteps(
+  rows: Matrix,
+  pool: readonly number[],
+  h: number,
+  start: Candidate,
+  steps: number,
+  context: CovarianceContext,
+): Candidate {
   let current = cStep(rows, pool, h, start, context);
   for (let step = 1; step < steps; step++) {
     const next = cStep(rows, pool, h, current, context);
@@ -136,7 +158,13 @@ function searchPool(
   return best(found, FINALISTS);
 }
 
-function finalists(rows: Matrix, h: number, starts: number, random: RandomSource, context: CovarianceContext): Candidate[] {
+function finalists(
+  rows: Matrix,
+  h: number,
+  starts: number,
+  random: RandomSource,
+  context: CovarianceContext,
+): Candidate[] {
   const n = rows.length;
   const all = rows.map((_, i) => i);
   if (n <= 2 * SUBSET_SIZE) return searchPool(rows, all, h, starts, random, context);
@@ -154,7 +182,10 @@ function finalists(rows: Matrix, h: number, starts: number, random: RandomSource
     perSubset.push(...searchPool(rows, pool, hPool, Math.ceil(starts / subsetCount), random, context));
   }
   const hMerged = Math.ceil((merged.length * h) / n);
-  return best(perSubset.map((c) => iterateCSteps(rows, merged, hMerged, c, 2, context)), FINALISTS);
+  return best(
+    perSubset.map((c) => iterateCSteps(rows, merged, hMerged, c, 2, context)),
+    FINALISTS,
+  );
 }
 
 function median(values: number[]): number {
@@ -174,7 +205,8 @@ export function fastMcd(rows: Matrix, options: McdOptions): McdResult {
   const all = rows.map((_, i) => i);
   const everyone = fitSubset(rows, all);
   if (h === n && !everyone) throw exactFitError(options.context, h);
-  const candidates = h === n && everyone ? [everyone] : finalists(rows, h, options.starts ?? 500, random, options.context);
+  const candidates =
+    h === n && everyone ? [everyone] : finalists(rows, h, options.starts ?? 500, random, options.context);
   const refined = candidates.map((c) => iterateCSteps(rows, all, h, c, MAX_C_STEPS, options.context));
   if (refined.length === 0) throw exactFitError(options.context, h);
   const raw = best(refined, 1)[0];

@@ -5,12 +5,38 @@ import { DEFAULT_MCD_SEED, fitGroup } from './group-model';
 
 describe('fitGroup', () => {
   it('refuses n ≤ p by name, with n and p', () => {
-    expect(() => fitGroup('Site 9', [[1, 2, 3], [2, 3, 1], [3, 1, 2]], ['a', 'b', 'c'])).toThrow(GroupTooSmallError);
-    expect(() => fitGroup('Site 9', [[1, 2, 3], [2, 3, 1], [3, 1, 2]], ['a', 'b', 'c'])).toThrow(/"Site 9".*n = 3.*p = 3/);
+    expect(() =>
+      fitGroup(
+        'Site 9',
+        [
+          [1, 2, 3],
+          [2, 3, 1],
+          [3, 1, 2],
+        ],
+        ['a', 'b', 'c'],
+      ),
+    ).toThrow(GroupTooSmallError);
+    expect(() =>
+      fitGroup(
+        'Site 9',
+        [
+          [1, 2, 3],
+          [2, 3, 1],
+          [3, 1, 2],
+        ],
+        ['a', 'b', 'c'],
+      ),
+    ).toThrow(/"Site 9".*n = 3.*p = 3/);
   });
 
   it('names a constant variable', () => {
-    const rows = [[1, 7, 2], [2, 7, 1], [3, 7, 5], [4, 7, 3], [6, 7, 2]];
+    const rows = [
+      [1, 7, 2],
+      [2, 7, 1],
+      [3, 7, 5],
+      [4, 7, 3],
+      [6, 7, 2],
+    ];
     try {
       fitGroup('Site 9', rows, ['Cu', 'Zn', 'Pb']);
       expect.unreachable();
@@ -21,7 +47,18 @@ describe('fitGroup', () => {
   });
 
   it('refuses non-finite input instead of producing NaN', () => {
-    expect(() => fitGroup('g', [[1, Number.NaN], [2, 3], [4, 1], [0, 2]], ['a', 'b'])).toThrow(/row 1, column 2/);
+    expect(() =>
+      fitGroup(
+        'g',
+        [
+          [1, Number.NaN],
+          [2, 3],
+          [4, 1],
+          [0, 2],
+        ],
+        ['a', 'b'],
+      ),
+    ).toThrow(/row 1, column 2/);
   });
 
   it('a robust fit records its seed and rests on the reweighted support', () => {

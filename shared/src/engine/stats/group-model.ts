@@ -37,7 +37,11 @@ export const DEFAULT_MCD_SEED = 20240601;
 function assertNoConstantVariable(name: string, rows: Matrix, variables: readonly string[]): void {
   variables.forEach((variable, j) => {
     if (rows.every((row) => row[j] === rows[0][j])) {
-      throw new SingularCovarianceError(name, [variable], `variable "${variable}" is constant (${rows[0][j]}) in every member`);
+      throw new SingularCovarianceError(
+        name,
+        [variable],
+        `variable "${variable}" is constant (${rows[0][j]}) in every member`,
+      );
     }
   });
 }
@@ -46,7 +50,12 @@ function assertNoConstantVariable(name: string, rows: Matrix, variables: readonl
  * Mean, covariance and Cholesky factor of one reference group. A group with n ≤ p members has a
  * singular covariance and is refused by name, as is any constant or collinear variable.
  */
-export function fitGroup(name: string, rows: Matrix, variables: readonly string[], options: FitOptions = {}): GroupModel {
+export function fitGroup(
+  name: string,
+  rows: Matrix,
+  variables: readonly string[],
+  options: FitOptions = {},
+): GroupModel {
   const p = variables.length;
   assertFiniteMatrix(rows, `group "${name}"`, p);
   if (rows.length <= p) throw new GroupTooSmallError(name, rows.length, p, p + 1, 'a non-singular covariance');
@@ -68,5 +77,14 @@ export function fitGroup(name: string, rows: Matrix, variables: readonly string[
   }
   const mean = columnMeans(rows);
   const cov = covariance(rows, mean);
-  return { name, variables, n: rows.length, effectiveN: rows.length, mean, covariance: cov, cholesky: cholesky(cov, context), method: 'classic' };
+  return {
+    name,
+    variables,
+    n: rows.length,
+    effectiveN: rows.length,
+    mean,
+    covariance: cov,
+    cholesky: cholesky(cov, context),
+    method: 'classic',
+  };
 }

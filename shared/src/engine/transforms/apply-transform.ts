@@ -1,6 +1,13 @@
 import { InvalidInputError } from '../errors/engine-errors';
 import type { Matrix } from '../linalg/matrix';
-import { alrTransform, clrToPivotCoordinates, clrTransform, ilrTransform, lnTransform, log10Transform } from './log-ratio';
+import {
+  alrTransform,
+  clrToPivotCoordinates,
+  clrTransform,
+  ilrTransform,
+  lnTransform,
+  log10Transform,
+} from './log-ratio';
 
 export const TRANSFORM_NAMES = ['none', 'log10', 'ln', 'alr', 'clr', 'ilr'] as const;
 export type TransformName = (typeof TRANSFORM_NAMES)[number];
@@ -30,7 +37,9 @@ export function applyTransform(rows: Matrix, variables: readonly string[], spec:
       const denominatorName = spec.alrDenominator ?? variables[variables.length - 1];
       const denominator = variables.indexOf(denominatorName);
       if (denominator < 0) {
-        throw new InvalidInputError(`alr denominator "${denominatorName}" is not one of the variables ${variables.join(', ')}`);
+        throw new InvalidInputError(
+          `alr denominator "${denominatorName}" is not one of the variables ${variables.join(', ')}`,
+        );
       }
       return {
         values: alrTransform(rows, denominator),

@@ -11,7 +11,9 @@ describe('multiplicative replacement', () => {
       columnDetectionLimits: [0.02, null, null, null, null],
       closure: 1,
     });
-    [0.013, 0.123375, 0.122092, 0.715871, 0.025662].forEach((expected, j) => expect(values[0][j]).toBeCloseTo(expected, 6));
+    [0.013, 0.123375, 0.122092, 0.715871, 0.025662].forEach((expected, j) =>
+      expect(values[0][j]).toBeCloseTo(expected, 6),
+    );
     expect(imputed).toEqual([[true, false, false, false, false]]);
   });
 
@@ -24,18 +26,27 @@ describe('multiplicative replacement', () => {
   });
 
   it('refuses replacements that exhaust the closure constant', () => {
-    expect(() => replaceBelowDetectionLimit([[{ belowDetectionLimit: 2 }, 0.5]], { method: 'multiplicative', closure: 1 })).toThrow(
-      InvalidInputError,
-    );
+    expect(() =>
+      replaceBelowDetectionLimit([[{ belowDetectionLimit: 2 }, 0.5]], { method: 'multiplicative', closure: 1 }),
+    ).toThrow(InvalidInputError);
   });
 });
 
 describe('simple substitution', () => {
   it('uses DL/2 and DL/√2 (Hornung & Reed 1990) and flags every imputed cell', () => {
-    const rows = [[{ belowDetectionLimit: 0.4 }, 3], [1, 0]];
+    const rows = [
+      [{ belowDetectionLimit: 0.4 }, 3],
+      [1, 0],
+    ];
     const half = replaceBelowDetectionLimit(rows, { method: 'dl-half', columnDetectionLimits: [null, 0.1] });
-    expect(half.values).toEqual([[0.2, 3], [1, 0.05]]);
-    expect(half.imputed).toEqual([[true, false], [false, true]]);
+    expect(half.values).toEqual([
+      [0.2, 3],
+      [1, 0.05],
+    ]);
+    expect(half.imputed).toEqual([
+      [true, false],
+      [false, true],
+    ]);
     const root = replaceBelowDetectionLimit(rows, { method: 'dl-sqrt2' });
     expect(root.values[0][0]).toBeCloseTo(0.4 / Math.SQRT2, 15);
     // Without a column limit a zero is a real value and stays as it is.

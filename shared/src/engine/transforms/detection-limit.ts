@@ -24,7 +24,11 @@ export interface ReplacedData {
   readonly imputed: boolean[][];
 }
 
-function detectionLimitOf(cell: Measurement, column: number, limits: readonly (number | null)[] | undefined): number | null {
+function detectionLimitOf(
+  cell: Measurement,
+  column: number,
+  limits: readonly (number | null)[] | undefined,
+): number | null {
   if (typeof cell !== 'number') return cell.belowDetectionLimit;
   if (cell === 0) return limits?.[column] ?? null;
   return null;
@@ -38,13 +42,17 @@ function detectionLimitOf(cell: Measurement, column: number, limits: readonly (n
  *   Barceló-Vidal & Pawlowsky-Glahn 2003, Mathematical Geology 35:253). It keeps the ratios among the
  *   measured parts unchanged, so log-ratio analyses of those parts are not disturbed.
  */
-export function replaceBelowDetectionLimit(rows: readonly (readonly Measurement[])[], options: ReplacementOptions): ReplacedData {
+export function replaceBelowDetectionLimit(
+  rows: readonly (readonly Measurement[])[],
+  options: ReplacementOptions,
+): ReplacedData {
   const deltaFraction = options.deltaFraction ?? 0.65;
   const closure = options.closure ?? 1;
   if (!(deltaFraction > 0 && deltaFraction < 1)) {
     throw new InvalidInputError(`deltaFraction must lie in (0, 1), got ${deltaFraction}`);
   }
-  if (!(closure > 0) || !Number.isFinite(closure)) throw new InvalidInputError(`closure must be positive, got ${closure}`);
+  if (!(closure > 0) || !Number.isFinite(closure))
+    throw new InvalidInputError(`closure must be positive, got ${closure}`);
   const values: number[][] = [];
   const imputed: boolean[][] = [];
   rows.forEach((row, i) => {
@@ -59,9 +67,13 @@ export function replaceBelowDetectionLimit(rows: readonly (readonly Measurement[
       const deltaTotal = limits.reduce<number>((sum, limit) => sum + (limit === null ? 0 : deltaFraction * limit), 0);
       const shrink = 1 - deltaTotal / closure;
       if (!(shrink > 0)) {
-        throw new InvalidInputError(`row ${i + 1}: the replaced values add up to the closure constant ${closure} or more`);
+        throw new InvalidInputError(
+          `row ${i + 1}: the replaced values add up to the closure constant ${closure} or more`,
+        );
       }
-      values.push(row.map((cell, j) => (limits[j] === null ? (cell as number) * shrink : deltaFraction * (limits[j] as number))));
+      values.push(
+        row.map((cell, j) => (limits[j] === null ? (cell as number) * shrink : deltaFraction * (limits[j] as number))),
+      );
     } else {
       const divisor = options.method === 'dl-half' ? 2 : Math.SQRT2;
       values.push(row.map((cell, j) => (limits[j] === null ? (cell as number) : (limits[j] as number) / divisor)));

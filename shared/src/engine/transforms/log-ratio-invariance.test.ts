@@ -56,7 +56,10 @@ describe('D² invariance under log-ratio transforms', () => {
 
   it('MCD distances are the same under alr and ilr', () => {
     const context = { group: 'g', variables: ['z1', 'z2', 'z3', 'z4'] };
-    const a = fastMcd(applyTransform(compositions, parts, { transform: 'alr', alrDenominator: 'Fe' }).values, { seed: 4, context });
+    const a = fastMcd(applyTransform(compositions, parts, { transform: 'alr', alrDenominator: 'Fe' }).values, {
+      seed: 4,
+      context,
+    });
     const b = fastMcd(applyTransform(compositions, parts, { transform: 'ilr' }).values, { seed: 4, context });
     a.distances.forEach((value, i) => expect(Math.abs(value - b.distances[i]) / b.distances[i]).toBeLessThan(1e-8));
   });

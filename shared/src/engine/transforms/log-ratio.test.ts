@@ -1,7 +1,15 @@
 import { describe, expect, it } from 'vitest';
 import { NonPositiveValueError } from '../errors/engine-errors';
 import { multiply, transpose } from '../linalg/matrix';
-import { alrTransform, clrToPivotCoordinates, clrTransform, ilrTransform, lnTransform, log10Transform, pivotBasis } from './log-ratio';
+import {
+  alrTransform,
+  clrToPivotCoordinates,
+  clrTransform,
+  ilrTransform,
+  lnTransform,
+  log10Transform,
+  pivotBasis,
+} from './log-ratio';
 
 const rows = [
   [0.2, 0.3, 0.1, 0.4],
@@ -15,8 +23,18 @@ describe('log transforms', () => {
   });
 
   it('refuse zeros and negatives with row and column', () => {
-    expect(() => lnTransform([[1, 2], [3, 0]])).toThrow(NonPositiveValueError);
-    expect(() => lnTransform([[1, 2], [3, 0]])).toThrow(/row 2, column 2/);
+    expect(() =>
+      lnTransform([
+        [1, 2],
+        [3, 0],
+      ]),
+    ).toThrow(NonPositiveValueError);
+    expect(() =>
+      lnTransform([
+        [1, 2],
+        [3, 0],
+      ]),
+    ).toThrow(/row 2, column 2/);
   });
 });
 

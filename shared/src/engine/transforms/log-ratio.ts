@@ -39,7 +39,9 @@ export function alrTransform(rows: Matrix, denominator: number): number[][] {
   if (!Number.isInteger(denominator) || denominator < 0 || denominator >= parts) {
     throw new InvalidInputError(`alr denominator index ${denominator} is not one of the ${parts} parts`);
   }
-  return lnTransform(rows).map((logs) => logs.flatMap((value, j) => (j === denominator ? [] : [value - logs[denominator]])));
+  return lnTransform(rows).map((logs) =>
+    logs.flatMap((value, j) => (j === denominator ? [] : [value - logs[denominator]])),
+  );
 }
 
 /** Centred log-ratio: ln(xᵢ / g(x)), g the geometric mean of the row (Aitchison 1986). */

@@ -7,7 +7,13 @@ const groups = ['A', 'B', 'C'];
 describe('decideVerdict', () => {
   it('assigned when exactly one group reaches α', () => {
     const v = decideVerdict(groups, [0.01, 0.2, 0.03], [9, 2, 7], 0.05);
-    expect(v).toMatchObject({ verdict: 'assigned', group: 'B', probability: 0.2, runnerUp: 'C', runnerUpProbability: 0.03 });
+    expect(v).toMatchObject({
+      verdict: 'assigned',
+      group: 'B',
+      probability: 0.2,
+      runnerUp: 'C',
+      runnerUpProbability: 0.03,
+    });
   });
 
   it('ambiguous when two or more reach α, naming best and runner-up', () => {
@@ -22,7 +28,11 @@ describe('decideVerdict', () => {
   });
 
   it('handles a single group and refuses a bad α', () => {
-    expect(decideVerdict(['A'], [0.5], [1], 0.05)).toMatchObject({ verdict: 'assigned', runnerUp: null, runnerUpProbability: null });
+    expect(decideVerdict(['A'], [0.5], [1], 0.05)).toMatchObject({
+      verdict: 'assigned',
+      runnerUp: null,
+      runnerUpProbability: null,
+    });
     expect(() => decideVerdict(['A'], [0.5], [1], 1.5)).toThrow(InvalidInputError);
   });
 });

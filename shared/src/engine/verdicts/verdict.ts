@@ -20,7 +20,12 @@ export interface VerdictResult {
  * The verdict for one sample from its membership probabilities (one per group) at level α. Ties in
  * probability (two far outliers both at 0, say) are broken by the smaller D².
  */
-export function decideVerdict(groups: readonly string[], probabilities: ArrayLike<number>, d2: ArrayLike<number>, alpha: number): VerdictResult {
+export function decideVerdict(
+  groups: readonly string[],
+  probabilities: ArrayLike<number>,
+  d2: ArrayLike<number>,
+  alpha: number,
+): VerdictResult {
   if (!(alpha > 0 && alpha < 1)) throw new InvalidInputError(`α must lie strictly between 0 and 1, got ${alpha}`);
   if (groups.length === 0 || probabilities.length !== groups.length || d2.length !== groups.length) {
     throw new InvalidInputError('a verdict needs one probability and one D² per group');
