@@ -9,9 +9,11 @@ import { AllExceptionsFilter } from './common/all-exceptions.filter';
 import type { AppConfig } from './config/config';
 import { AppConfigModule } from './config/config.module';
 import { dataSourceOptions } from './database/typeorm-options';
+import { GroupsModule } from './groups/groups.module';
 import { HealthModule } from './health/health.module';
 import { RateLimitModule } from './rate-limit/rate-limit.module';
 import { RedisModule } from './redis/redis.module';
+import { StudiesModule } from './studies/studies.module';
 import { RunsModule } from './runs/runs.module';
 
 @Module({})
@@ -28,6 +30,8 @@ export class AppModule {
         AuthModule,
         AccountsModule,
         HealthModule,
+        GroupsModule,
+        StudiesModule,
         RunsModule,
       ],
       providers: [

@@ -18,7 +18,8 @@ export const studyDescriptionSchema = z.string().trim().max(5000, { error: 'Use 
 
 /** Data card: the pinned dataset versions (never "the latest"), so a study reads the same data forever. */
 export const dataStepParametersSchema = z.object({
-  referenceVersionId: z.uuid({ error: 'Choose a version of a reference dataset' }).nullable(),
+  referenceVersionId: z.uuid({ error: 'Choose a version of a reference dataset' }),
+  /** May wait until the groups are checked; the Assign card needs it. */
   unknownsVersionId: z.uuid({ error: 'Choose a version of an unknowns dataset' }).nullable(),
 });
 

@@ -1,0 +1,6 @@
+import { createZodDto } from 'nestjs-zod';
+import { createGroupSchema, createGroupVersionSchema, updateGroupSchema } from '@provenote/shared';
+
+export class CreateGroupDto extends createZodDto(createGroupSchema) {}
+export class UpdateGroupDto extends createZodDto(updateGroupSchema) {}
+export class CreateGroupVersionDto extends createZodDto(createGroupVersionSchema) {}

@@ -1,0 +1,18 @@
+import { Module } from '@nestjs/common';
+import { TypeOrmModule } from '@nestjs/typeorm';
+import { GroupsModule } from '../groups/groups.module';
+import { SignOffService } from './sign-off.service';
+import { StepsService } from './steps.service';
+import { StudiesController } from './studies.controller';
+import { StudiesService } from './studies.service';
+import { StudyOverrideEntity } from './study-override.entity';
+import { StudyStepEntity } from './study-step.entity';
+import { StudyEntity } from './study.entity';
+
+@Module({
+  imports: [TypeOrmModule.forFeature([StudyEntity, StudyStepEntity, StudyOverrideEntity]), GroupsModule],
+  controllers: [StudiesController],
+  providers: [StudiesService, StepsService, SignOffService],
+  exports: [StudiesService],
+})
+export class StudiesModule {}

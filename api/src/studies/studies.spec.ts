@@ -1,0 +1,251 @@
+import { randomUUID } from 'node:crypto';
+import { DataSource } from 'typeorm';
+import type { StepKey, StepStatus, Study } from '@provenote/shared';
+import { createLabWithMembers, type SignedInMember } from '../../test/auth-helpers';
+import { createTestApp, type TestApp } from '../../test/test-app';
+import { StudyStepEntity } from './study-step.entity';
+
+type Members = Record<'pi' | 'analyst' | 'student' | 'guest', SignedInMember>;
+
+const prepare = {
+  elements: ['Zr', 'Nb', 'La', 'Th'],
+  transform: 'clr',
+  alrDenominator: null,
+  belowDetection: 'dl-half',
+  covariance: 'classic',
+  seed: 11,
+};
+
+describe('studies and their step cards (HTTP, PostgreSQL)', () => {
+  let testApp: TestApp;
+  let labId: string;
+  let members: Members;
+  let otherLab: { labId: string; members: Record<'analyst', SignedInMember> };
+  const referenceVersionId = randomUUID();
+
+  const base = () => `/api/labs/${labId}/studies`;
+  const statuses = (study: Study) => Object.fromEntries(study.steps.map((s) => [s.key, s.status]));
+
+  /** Stands in for a finished run of a computed card (the run itself is the queue's business). */
+  async function markRun(studyId: string, key: StepKey, status: StepStatus) {
+    await testApp.app
+      .get(DataSource)
+      .getRepository(StudyStepEntity)
+      .update({ studyId, key }, { status, runId: randomUUID() });
+  }
+
+  async function createStudy(member: SignedInMember, name = 'Reservoir core 2') {
+    const res = await member.agent.post(base()).send({ name, description: 'Synthetic demo' }).expect(201);
+    return res.body as Study;
+  }
+
+  async function createGroup(name: string, memberIds: string[]) {
+    const res = await members.analyst.agent
+      .post(`/api/labs/${labId}/groups`)
+      .send({ name, datasetVersionId: referenceVersionId, memberIds })
+      .expect(201);
+    return res.body as { id: string; versions: { id: string }[] };
+  }
+
+  /** A study whose Data, Prepare and Reference groups cards are current. */
+  async function studyWithGroups(member: SignedInMember, versionIds: string[]) {
+    const study = await createStudy(member);
+    const step = (key: string) => `${base()}/${study.id}/steps/${key}`;
+    await member.agent
+      .put(step('data'))
+      .send({ parameters: { referenceVersionId, unknownsVersionId: null } })
+      .expect(200);
+    await member.agent.put(step('prepare')).send({ parameters: prepare }).expect(200);
+    const res = await member.agent
+      .put(step('groups'))
+      .send({ parameters: { groupVersionIds: versionIds } })
+      .expect(200);
+    return res.body.study as Study;
+  }
+
+  let north: { id: string; versions: { id: string }[] };
+  let south: { id: string; versions: { id: string }[] };
+
+  beforeAll(async () => {
+    testApp = await createTestApp();
+    ({ labId, members } = await createLabWithMembers(testApp, ['pi', 'analyst', 'student', 'guest'] as const));
+    otherLab = await createLabWithMembers(testApp, ['analyst'] as const);
+    north = await createGroup('North ridge', ['N1', 'N2', 'N3']);
+    south = await createGroup('South fan', ['S1', 'S2', 'S3']);
+  });
+  afterAll(() => testApp.close());
+
+  it('creates a study with its seven cards, all not run, owned by its creator', async () => {
+    const study = await createStudy(members.analyst);
+    expect(study.steps.map((s) => s.key)).toEqual(['data', 'prepare', 'groups', 'check', 'assign', 'review', 'export']);
+    expect(new Set(study.steps.map((s) => s.status))).toEqual(new Set(['not_run']));
+    expect(study).toMatchObject({ status: 'draft', owner: { id: members.analyst.user.id } });
+
+    const list = await members.guest.agent.get(base()).expect(200);
+    expect(list.body.studies.map((s: Study) => s.id)).toContain(study.id);
+  });
+
+  it('lets guests read but not create, and hides the lab from outsiders', async () => {
+    await members.guest.agent.post(base()).send({ name: 'Nope' }).expect(403);
+    await otherLab.members.analyst.agent.get(base()).expect(404);
+    const study = await createStudy(members.analyst);
+    await otherLab.members.analyst.agent.get(`/api/labs/${otherLab.labId}/studies/${study.id}`).expect(404);
+  });
+
+  it('answers invalid settings with the field to fix', async () => {
+    const study = await createStudy(members.analyst);
+    const res = await members.analyst.agent
+      .put(`${base()}/${study.id}/steps/data`)
+      .send({ parameters: { referenceVersionId: 'not-a-version', unknownsVersionId: null } })
+      .expect(400);
+    expect(res.body.errors[0]).toMatchObject({ path: 'parameters.referenceVersionId' });
+
+    await members.analyst.agent
+      .put(`${base()}/${study.id}/steps/data`)
+      .send({ parameters: { referenceVersionId, unknownsVersionId: null } })
+      .expect(200);
+    const alr = await members.analyst.agent
+      .put(`${base()}/${study.id}/steps/prepare`)
+      .send({ parameters: { ...prepare, transform: 'alr', alrDenominator: 'Cu' } })
+      .expect(400);
+    expect(alr.body.errors[0]).toMatchObject({ path: 'parameters.alrDenominator' });
+  });
+
+  it('refuses a card whose cards above are not complete', async () => {
+    const study = await createStudy(members.analyst);
+    const res = await members.analyst.agent
+      .put(`${base()}/${study.id}/steps/prepare`)
+      .send({ parameters: prepare })
+      .expect(400);
+    expect(res.body.message).toBe('Complete "Data" first.');
+  });
+
+  it('marks every saved or computed card below an edit stale and names them', async () => {
+    const study = await studyWithGroups(members.analyst, [north.versions[0].id, south.versions[0].id]);
+    expect(statuses(study)).toMatchObject({ data: 'current', prepare: 'current', groups: 'current', check: 'not_run' });
+    await markRun(study.id, 'check', 'current');
+    await markRun(study.id, 'assign', 'current');
+
+    const res = await members.analyst.agent
+      .put(`${base()}/${study.id}/steps/prepare`)
+      .send({ parameters: { ...prepare, transform: 'ilr' } })
+      .expect(200);
+    expect(res.body.staleSteps).toEqual(['groups', 'check', 'assign']);
+    expect(statuses(res.body.study)).toEqual({
+      data: 'current',
+      prepare: 'current',
+      groups: 'stale',
+      check: 'stale',
+      assign: 'stale',
+      review: 'not_run',
+      export: 'not_run',
+    });
+    expect(res.body.study.status).toBe('needs_rerun');
+    const stored = await members.guest.agent.get(`${base()}/${study.id}`).expect(200);
+    expect(stored.body.steps[1].parameters.transform).toBe('ilr');
+  });
+
+  it('keeps a member exclusion with its reason, and only for members of a chosen group', async () => {
+    const study = await studyWithGroups(members.analyst, [north.versions[0].id, south.versions[0].id]);
+    const url = `${base()}/${study.id}/steps/check`;
+    const reason = 'Sample N2 was taken from a road cut, not natural bedrock';
+    await members.analyst.agent
+      .put(url)
+      .send({ parameters: { exclusions: [{ sampleId: 'X9', group: 'North ridge', reason }] } })
+      .expect(400);
+    const res = await members.analyst.agent
+      .put(url)
+      .send({ parameters: { exclusions: [{ sampleId: 'N2', group: 'North ridge', reason }] } })
+      .expect(200);
+    expect(res.body.study.steps[3].parameters.exclusions).toEqual([{ sampleId: 'N2', group: 'North ridge', reason }]);
+    await members.pi.agent
+      .put(url)
+      .send({ parameters: { exclusions: [] } })
+      .expect(200);
+  });
+
+  it('lets students assign only against approved group versions, and only in their own studies', async () => {
+    const study = await createStudy(members.student);
+    const step = (key: string) => `${base()}/${study.id}/steps/${key}`;
+    await members.student.agent
+      .put(step('data'))
+      .send({ parameters: { referenceVersionId, unknownsVersionId: null } })
+      .expect(200);
+    await members.student.agent.put(step('prepare')).send({ parameters: prepare }).expect(200);
+    const groups = { parameters: { groupVersionIds: [north.versions[0].id, south.versions[0].id] } };
+    const refused = await members.student.agent.put(step('groups')).send(groups).expect(403);
+    expect(refused.body.message).toMatch(/not approved yet/);
+
+    for (const group of [north, south]) {
+      await members.student.agent
+        .post(`/api/labs/${labId}/groups/${group.id}/versions/${group.versions[0].id}/approve`)
+        .expect(403);
+      await members.analyst.agent
+        .post(`/api/labs/${labId}/groups/${group.id}/versions/${group.versions[0].id}/approve`)
+        .expect(201);
+    }
+    await members.student.agent.put(step('groups')).send(groups).expect(200);
+    await members.student.agent
+      .put(step('check'))
+      .send({ parameters: { exclusions: [] } })
+      .expect(403);
+
+    const analystsStudy = await createStudy(members.analyst);
+    await members.student.agent
+      .put(`${base()}/${analystsStudy.id}/steps/data`)
+      .send({ parameters: { referenceVersionId, unknownsVersionId: null } })
+      .expect(403);
+  });
+
+  it('signs off only complete studies, by the PI, and then refuses every change', async () => {
+    const study = await studyWithGroups(members.analyst, [north.versions[0].id, south.versions[0].id]);
+    const signOff = `${base()}/${study.id}/sign-off`;
+    const early = await members.pi.agent.post(signOff).send({}).expect(400);
+    expect(early.body.message).toMatch(/Group check/);
+
+    for (const key of ['check', 'assign', 'review'] as const) await markRun(study.id, key, 'current');
+    await members.analyst.agent.post(signOff).send({}).expect(403);
+    const signed = await members.pi.agent.post(signOff).send({ statement: 'Checked against field notes' }).expect(201);
+    expect(signed.body).toMatchObject({ status: 'signed_off', signedOffBy: members.pi.user.displayName });
+
+    const locked = await members.analyst.agent
+      .put(`${base()}/${study.id}/steps/prepare`)
+      .send({ parameters: prepare })
+      .expect(409);
+    expect(locked.body.message).toMatch(/signed off/);
+    await members.analyst.agent.patch(`${base()}/${study.id}`).send({ name: 'Renamed' }).expect(409);
+    await members.pi.agent.delete(`${base()}/${study.id}`).expect(409);
+    await members.pi.agent.post(signOff).send({}).expect(409);
+
+    const audit = await members.pi.agent.get(`/api/labs/${labId}/audit?action=study.signed_off`).expect(200);
+    expect(audit.body.events.map((e: { target: { id: string } }) => e.target.id)).toContain(study.id);
+  });
+
+  it('copies a study with new data: settings carried over, nothing computed', async () => {
+    const source = await studyWithGroups(members.analyst, [north.versions[0].id, south.versions[0].id]);
+    await markRun(source.id, 'check', 'current');
+    const unknownsVersionId = randomUUID();
+
+    const same = await members.student.agent
+      .post(`${base()}/${source.id}/copy`)
+      .send({ name: 'Core 3', data: { referenceVersionId, unknownsVersionId } })
+      .expect(201);
+    expect(same.body).toMatchObject({ copiedFromId: source.id, owner: { id: members.student.user.id } });
+    expect(statuses(same.body)).toMatchObject({
+      data: 'current',
+      prepare: 'current',
+      groups: 'current',
+      check: 'not_run',
+    });
+    expect(same.body.steps[0].parameters).toEqual({ referenceVersionId, unknownsVersionId });
+    expect(same.body.steps[2].parameters).toEqual(source.steps[2].parameters);
+    expect(same.body.steps[3].runId).toBeNull();
+
+    const other = await members.analyst.agent
+      .post(`${base()}/${source.id}/copy`)
+      .send({ name: 'New reference', data: { referenceVersionId: randomUUID(), unknownsVersionId } })
+      .expect(201);
+    expect(statuses(other.body)).toMatchObject({ prepare: 'current', groups: 'not_run' });
+    expect(other.body.steps[2].parameters).toBeNull();
+  });
+});
