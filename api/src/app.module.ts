@@ -11,6 +11,7 @@ import { AppConfigModule } from './config/config.module';
 import { dataSourceOptions } from './database/typeorm-options';
 import { GroupsModule } from './groups/groups.module';
 import { HealthModule } from './health/health.module';
+import { MailModule } from './mail/mail.module';
 import { RateLimitModule } from './rate-limit/rate-limit.module';
 import { RedisModule } from './redis/redis.module';
 import { StudiesModule } from './studies/studies.module';
@@ -26,6 +27,7 @@ export class AppModule {
         TypeOrmModule.forRoot({ ...dataSourceOptions(config.DATABASE_URL), autoLoadEntities: true }),
         RedisModule,
         RateLimitModule,
+        MailModule,
         AuditModule,
         AuthModule,
         AccountsModule,

@@ -8,6 +8,8 @@ import { Lab } from '../src/accounts/lab.entity';
 import { Membership } from '../src/accounts/membership.entity';
 import { User } from '../src/accounts/user.entity';
 import { CSRF_HEADER } from '../src/auth/session-cookies';
+import type { ReceivedMail } from '../src/mail/embedded-smtp';
+import { MailService } from '../src/mail/mail.service';
 import type { TestApp } from './test-app';
 
 /** The password of every account these helpers create. */
@@ -93,4 +95,27 @@ export async function createLabWithMembers<R extends LabRole = LabRole>(
     members[role] = { user, agent: await signIn(testApp, user.email) };
   }
   return { labId, members };
+}
+
+/** The newest mail the embedded fake SMTP server received for this address (waits for it to arrive). */
+export async function mailTo(
+  testApp: TestApp,
+  address: string,
+  subject?: RegExp,
+  timeoutMs = 5000,
+): Promise<ReceivedMail> {
+  const embedded = testApp.app.get(MailService).embedded;
+  if (!embedded) throw new Error('mailTo needs MAIL_MODE=embedded');
+  await embedded.waitFor((mail) => mail.to.includes(address) && (!subject || subject.test(mail.subject)), timeoutMs);
+  const mail = embedded.list().find((m) => m.to.includes(address) && (!subject || subject.test(m.subject)));
+  if (!mail) throw new Error(`No mail to ${address}`);
+  return mail;
+}
+
+/** The `token` of the first link in a mail's text that points at `path` under PUBLIC_URL. */
+export function tokenFromLink(testApp: TestApp, mail: ReceivedMail, path: string): string {
+  const prefix = `${testApp.config.PUBLIC_URL}${path}?token=`;
+  const line = mail.text.split(/\s+/).find((word) => word.startsWith(prefix));
+  if (!line) throw new Error(`No ${path} link in the mail “${mail.subject}”:\n${mail.text}`);
+  return new URL(line).searchParams.get('token') ?? '';
 }

@@ -36,7 +36,13 @@ export class SignInService {
     private readonly rateLimits: RateLimitService,
   ) {}
 
-  async signIn({ email, password }: SignIn, ip: string): Promise<{ user: AuthUser; token: string; expiresAt: Date }> {
+  async signIn(credentials: SignIn, ip: string): Promise<{ user: AuthUser; token: string; expiresAt: Date }> {
+    const user = await this.verify(credentials, ip);
+    return { user, ...(await this.sessions.create(user.id)) };
+  }
+
+  /** Checks an e-mail and password under the same throttling as sign-in (accepting an invitation uses it). */
+  async verify({ email, password }: SignIn, ip: string): Promise<AuthUser> {
     await this.rateLimits.check(accountLimit(email));
     await this.rateLimits.check(addressLimit(ip));
     const user = await this.users.findOne({ where: { email } });
@@ -46,7 +52,6 @@ export class SignInService {
       throw new UnauthorizedException(SIGN_IN_FAILED);
     }
     await this.rateLimits.reset(accountLimit(email).key);
-    const session = await this.sessions.create(user.id);
-    return { user: { id: user.id, email: user.email, displayName: user.displayName }, ...session };
+    return { id: user.id, email: user.email, displayName: user.displayName };
   }
 }

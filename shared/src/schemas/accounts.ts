@@ -67,3 +67,15 @@ export const acceptInvitationSchema = z.object({
 });
 export const acceptInvitationNewAccountSchema = z.object({ password: passwordSchema, displayName: displayNameSchema });
 export type AcceptInvitation = z.infer<typeof acceptInvitationSchema>;
+
+/** GET /api/labs/:labId/outbox: mails the local fake SMTP server received (embedded mail mode only). */
+export const outboxMailSchema = z.object({
+  id: z.uuid(),
+  receivedAt: z.iso.datetime(),
+  from: z.string(),
+  to: z.array(z.string()),
+  subject: z.string(),
+  text: z.string(),
+});
+export type OutboxMail = z.infer<typeof outboxMailSchema>;
+export const outboxSchema = z.array(outboxMailSchema);
