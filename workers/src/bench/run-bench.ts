@@ -1,0 +1,46 @@
+import { cpus, platform, release } from 'node:os';
+import { join } from 'node:path';
+import type { BenchFigure, BenchSection } from './bench-section';
+import { engineBench } from './engine.bench';
+import { mergeResults, type BenchResults } from './results-file';
+
+/** Sections run in this order; further sections (import, API, bundle) are appended here. */
+export const SECTIONS: readonly BenchSection[] = [engineBench];
+
+export function formatTable(figures: readonly BenchFigure[]): string {
+  const width = Math.max(...figures.map((f) => f.label.length));
+  return figures
+    .map((f) => `${f.label.padEnd(width)}  ${f.value.toLocaleString('en-US').padStart(14)} ${f.unit}`)
+    .join('\n');
+}
+
+export function machineInfo(): BenchResults {
+  return {
+    'machine.cpu_model': cpus()[0]?.model ?? 'unknown',
+    'machine.cores': cpus().length,
+    'machine.node_version': process.version,
+    'machine.os': `${platform()} ${release()}`,
+  };
+}
+
+/** Runs the named sections (all when none is named), prints the table and merges the results file. */
+export async function runBench(
+  root: string,
+  only: readonly string[] = [],
+  log: (line: string) => void = console.log,
+): Promise<BenchResults> {
+  const sections = SECTIONS.filter((s) => only.length === 0 || only.includes(s.name));
+  const figures: BenchFigure[] = [];
+  for (const section of sections) {
+    log(`— ${section.name} —`);
+    figures.push(...(await section.run(log)));
+  }
+  log('');
+  log(formatTable(figures));
+  const results: BenchResults = { ...machineInfo(), 'machine.measured_at': new Date().toISOString() };
+  for (const figure of figures) results[figure.key] = figure.value;
+  const file = join(root, '.data', 'bench', 'results.json');
+  mergeResults(file, results);
+  log(`\nwrote ${file}`);
+  return results;
+}
