@@ -9,6 +9,7 @@ import { AllExceptionsFilter } from './common/all-exceptions.filter';
 import type { AppConfig } from './config/config';
 import { AppConfigModule } from './config/config.module';
 import { dataSourceOptions } from './database/typeorm-options';
+import { DatasetsModule } from './datasets/datasets.module';
 import { GroupsModule } from './groups/groups.module';
 import { HealthModule } from './health/health.module';
 import { MailModule } from './mail/mail.module';
@@ -32,6 +33,7 @@ export class AppModule {
         AuthModule,
         AccountsModule,
         HealthModule,
+        DatasetsModule,
         GroupsModule,
         StudiesModule,
         RunsModule,

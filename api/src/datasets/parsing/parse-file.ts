@@ -38,6 +38,7 @@ export async function analyseFile(bytes: Buffer, filename: string, confirmed?: P
 export interface ImportResult {
   summary: ImportSummary;
   columns: StoredColumn[];
+  fingerprint: string;
 }
 
 /** Reads the whole file under a confirmed mapping; rows and problems go to the sink as they are read. */
@@ -51,5 +52,5 @@ export async function importFile(
   const { source, layout } = await analyseFile(bytes, filename, mapping.options);
   const resolved = resolveMapping(mapping, layout, kind);
   const summary = await importRows(source, layout, resolved, sink);
-  return { summary, columns: resolved.measurements };
+  return { summary, columns: resolved.measurements, fingerprint: layout.fingerprint };
 }

@@ -1,0 +1,89 @@
+import { createHash } from 'node:crypto';
+import { Injectable, NotFoundException } from '@nestjs/common';
+import { InjectRepository } from '@nestjs/typeorm';
+import type { DatasetMapping, FileLayout, ImportPreview, Problem } from '@provenote/shared';
+import { Repository } from 'typeorm';
+import { DatasetFile } from './dataset-file.entity';
+import { fileView, rowView } from './dataset-views';
+import { asHttpErrors } from './import-failures';
+import type { ImportedRow } from './parsing/import-rows';
+import type { Layout } from './parsing/layout';
+import { analyseFile, importFile } from './parsing/parse-file';
+import { detectFormat } from './parsing/table-source';
+import { SavedMapping } from './saved-mapping.entity';
+
+const PREVIEW_ROWS = 100;
+const PREVIEW_PROBLEMS = 500;
+
+/** Uploaded files: kept byte-exact before any import, read for the mapping step and the preview. */
+@Injectable()
+export class DatasetFilesService {
+  constructor(
+    @InjectRepository(DatasetFile) private readonly files: Repository<DatasetFile>,
+    @InjectRepository(SavedMapping) private readonly savedMappings: Repository<SavedMapping>,
+  ) {}
+
+  /** Stores a file (if it can be read as a table at all) and proposes a mapping for it. */
+  async upload(labId: string, userId: string, filename: string, content: Buffer): Promise<FileLayout> {
+    return asHttpErrors(async () => {
+      const analysis = await analyseFile(content, filename);
+      const file = await this.files.save(
+        this.files.create({
+          labId,
+          filename,
+          format: detectFormat(content, filename),
+          sizeBytes: content.length,
+          sha256: createHash('sha256').update(content).digest('hex'),
+          content,
+          uploadedBy: userId,
+        }),
+      );
+      const saved = await this.savedMappings.findOne({ where: { labId, fingerprint: analysis.layout.fingerprint } });
+      const useSaved = saved !== null && fitsLayout(saved.mapping, analysis.layout);
+      return {
+        file: fileView(file),
+        headers: analysis.layout.headers,
+        unitsRow: analysis.layout.unitsRow,
+        fingerprint: analysis.layout.fingerprint,
+        sheets: analysis.source.sheets,
+        // The columns as saved; the conventions (delimiter, encoding…) as found in this file.
+        mapping: useSaved ? { options: analysis.options, columns: saved.mapping.columns } : analysis.guessedMapping,
+        mappingSource: useSaved ? 'saved' : 'guessed',
+        notes: analysis.layout.notes,
+      };
+    });
+  }
+
+  /** The whole file read under a mapping, nothing stored: counts, the first rows, the first problems. */
+  async preview(labId: string, fileId: string, mapping: DatasetMapping): Promise<ImportPreview> {
+    const file = await this.withContent(labId, fileId);
+    const rows: ImportedRow[] = [];
+    const problems: Problem[] = [];
+    let problemCount = 0;
+    return asHttpErrors(async () => {
+      const { summary, columns } = await importFile(file.content, file.filename, mapping, null, {
+        rows: async (batch) => void rows.push(...batch.slice(0, PREVIEW_ROWS - rows.length)),
+        problems: async (batch) => {
+          problemCount += batch.length;
+          problems.push(...batch.slice(0, PREVIEW_PROBLEMS - problems.length));
+        },
+      });
+      return { summary, columns, rows: rows.map(rowView), problems, problemCount };
+    });
+  }
+
+  async withContent(labId: string, fileId: string): Promise<DatasetFile> {
+    const file = await this.files
+      .createQueryBuilder('file')
+      .addSelect('file.content')
+      .where('file.id = :fileId AND file.lab_id = :labId', { fileId, labId })
+      .getOne();
+    if (!file) throw new NotFoundException('No such uploaded file in this lab');
+    return file;
+  }
+}
+
+/** A saved mapping is offered again only where it still names the same columns at the same places. */
+function fitsLayout(mapping: DatasetMapping, layout: Layout): boolean {
+  return mapping.columns.every((column) => layout.headers[column.index] === column.header);
+}
