@@ -24,4 +24,6 @@ if (!existsSync(entry)) {
   process.exit(1);
 }
 const { main } = require(entry);
-process.exitCode = main(process.argv.slice(2));
+Promise.resolve(main(process.argv.slice(2))).then((code) => {
+  process.exitCode = code;
+});

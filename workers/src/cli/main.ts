@@ -1,4 +1,5 @@
 import { EngineError } from '@provenote/shared';
+import { runVerifyCommand } from '../bundles/verify-command';
 import { runCheck } from './check-command';
 import { runClassify } from './classify-command';
 import { EXIT_INPUT, EXIT_OK, EXIT_USAGE, InputFileError, UsageError } from './cli-errors';
@@ -13,7 +14,9 @@ export function main(
   argv: readonly string[],
   stdout: Output = process.stdout,
   stderr: Output = process.stderr,
-): number {
+): number | Promise<number> {
+  // verify reads a zip archive, which is asynchronous; the other commands stay synchronous.
+  if (argv[0] === 'verify') return runVerifyCommand(argv.slice(1), stdout, stderr);
   try {
     const parsed = parseArguments(argv);
     if (parsed.command === 'help') {

@@ -37,6 +37,7 @@ export type ParsedCommand =
 export const USAGE = `Usage:
   provenote classify --reference REF.csv --unknowns UNK.csv --out DIR [options]
   provenote check --reference REF.csv --out DIR [options]
+  provenote verify BUNDLE.zip
 
 Options:
   --id-column NAME          sample id column (default sample_id)
