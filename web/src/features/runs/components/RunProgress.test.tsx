@@ -34,7 +34,7 @@ afterEach(() => vi.unstubAllGlobals());
 describe('RunProgress (polling, as where EventSource is missing)', () => {
   it('follows the run from running to a failure and shows the reason', async () => {
     const answers = [run({}), run({ status: 'failed', progress: 0.4, error: 'group "upland" has n = 3 members' })];
-    const fetch = vi.fn(async () => json(answers.length > 1 ? answers.shift() : answers[0]));
+    const fetch = vi.fn(async (_url: string) => json(answers.length > 1 ? answers.shift() : answers[0]));
     vi.stubGlobal('fetch', fetch);
     render(<RunProgress labId={labId} runId={runId} />);
     expect(await screen.findByText('Running · classifying unknowns')).toBeInTheDocument();
