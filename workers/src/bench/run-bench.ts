@@ -1,4 +1,4 @@
-import { cpus, platform, release } from 'node:os';
+import { cpus, loadavg, platform, release } from 'node:os';
 import { join } from 'node:path';
 import type { BenchFigure, BenchSection } from './bench-section';
 import { engineBench } from './engine.bench';
@@ -20,6 +20,8 @@ export function machineInfo(): BenchResults {
     'machine.cores': cpus().length,
     'machine.node_version': process.version,
     'machine.os': `${platform()} ${release()}`,
+    // Other work on the machine slows every figure: the load average at the start says how busy it was.
+    'machine.load_average_1m': Math.round(loadavg()[0] * 100) / 100,
   };
 }
 

