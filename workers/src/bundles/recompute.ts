@@ -1,14 +1,14 @@
-import {
-  applyTransform,
-  classifySamples,
-  fitGroup,
-  leaveOneOutCheck,
-  pairwiseHotelling,
-  toDistanceCoordinates,
-  type AssignmentParameters,
-  type TransformSpec,
-} from '@provenote/shared';
+import { applyTransform, type AssignmentParameters, type TransformSpec } from '@provenote/shared';
+import { checkTable } from '../cli/check-command';
+import { classifyTables } from '../cli/classify-command';
+import { fitReference } from '../cli/fit-reference';
+import { loadSamples } from '../cli/load-samples';
+import type { ClassifyOptions } from '../cli/parse-args';
+import { prepareFeatures } from '../cli/prepare-features';
+import type { Table } from '../cli/read-table';
+import type { AssignmentVerdict } from '@provenote/shared';
 import type { DistanceRow, GroupContent, MemberRow, SampleRole, SeparationRow } from './bundle-content';
+import { PREPARED_PATH } from './bundle-layout';
 
 /** Prepared (normalised, imputed) values, one row per sample in the order of `elements`. */
 export interface PreparedSamples {
@@ -18,7 +18,7 @@ export interface PreparedSamples {
 
 export interface ComputedAssignment {
   readonly sampleId: string;
-  readonly verdict: 'assigned' | 'ambiguous' | 'unassigned';
+  readonly verdict: AssignmentVerdict;
   readonly group: string;
   readonly probability: number;
   readonly runnerUp: string | null;
@@ -45,47 +45,78 @@ function coordinateOfElement(elements: readonly string[], spec: TransformSpec): 
   return elements.map((_, j) => j);
 }
 
+const ID = 'sample_id';
+const GROUP = 'group';
+
+/** The prepared values as the command-line tool's in-memory tables; String() keeps every double exact. */
+function tables(prepared: PreparedSamples): { reference: Table; unknowns: Table | null } {
+  const reference = prepared.samples.filter((s) => s.role === 'reference');
+  const unknowns = prepared.samples.filter((s) => s.role === 'unknown');
+  const table = (label: string, header: string[], rows: string[][]): Table => ({
+    file: `${PREPARED_PATH} (${label})`,
+    header,
+    rows,
+    sha256: '',
+  });
+  return {
+    reference: table(
+      'reference samples',
+      [ID, GROUP, ...prepared.elements],
+      reference.map((s) => [s.sampleId, s.group ?? '', ...s.values.map(String)]),
+    ),
+    unknowns:
+      unknowns.length === 0
+        ? null
+        : table(
+            'unknown samples',
+            [ID, ...prepared.elements],
+            unknowns.map((s) => [s.sampleId, ...s.values.map(String)]),
+          ),
+  };
+}
+
 /**
- * A run's results from its prepared data and parameters, by the same engine steps as the run queue's
- * processors: the transform, one model per reference group (groups in order of name), every unknown
- * against every group, every member left out of its own group, and the pairwise separation.
+ * A run's results from its prepared data and parameters through the command-line tool's own classify
+ * and check paths, so a bundle is judged by exactly the computation anyone can run on CSV files. The
+ * values are already imputed, so the tool's below-detection step has nothing left to replace.
  */
 export function recomputeRun(prepared: PreparedSamples, parameters: AssignmentParameters, seed: number): RecomputedRun {
   const spec: TransformSpec = { transform: parameters.transform, alrDenominator: parameters.alrDenominator };
-  const rows = prepared.samples.map((sample) => sample.values);
-  const transformedData = applyTransform(rows, prepared.elements, spec);
+  const transformedData = applyTransform(
+    prepared.samples.map((sample) => sample.values),
+    prepared.elements,
+    spec,
+  );
   const coordinate = coordinateOfElement(prepared.elements, spec);
   const transformed = transformedData.values.map((row) => coordinate.map((k) => (k === null ? null : row[k])));
-  const distanceData = toDistanceCoordinates(transformedData, spec);
-  const variables = distanceData.variables;
 
-  const byGroup = new Map<string, { members: string[]; rows: number[][] }>();
-  const unknownIds: string[] = [];
-  const unknownRows: number[][] = [];
-  prepared.samples.forEach((sample, i) => {
-    if (sample.role === 'unknown') {
-      unknownIds.push(sample.sampleId);
-      unknownRows.push(distanceData.values[i]);
-      return;
-    }
-    const entry = byGroup.get(sample.group ?? '') ?? { members: [], rows: [] };
-    entry.members.push(sample.sampleId);
-    entry.rows.push(distanceData.values[i]);
-    byGroup.set(sample.group ?? '', entry);
-  });
-  const groupList = [...byGroup.entries()]
-    .sort(([a], [b]) => (a < b ? -1 : a > b ? 1 : 0))
-    .map(([name, entry]) => ({ name, ...entry }));
-  const fitOptions = { covariance: parameters.covariance, seed };
-  const models = groupList.map((group) => fitGroup(group.name, group.rows, variables, fitOptions));
-
-  const groups = models.map((model, k): Omit<GroupContent, 'version'> => ({
+  const { reference, unknowns } = tables(prepared);
+  const options: ClassifyOptions = {
+    reference: reference.file,
+    unknowns: unknowns?.file ?? '',
+    out: '',
+    idColumn: ID,
+    groupColumn: GROUP,
+    elements: [...prepared.elements],
+    transform: parameters.transform,
+    alrDenominator: parameters.alrDenominator ?? null,
+    covariance: parameters.covariance,
+    probability: parameters.probability,
+    alpha: parameters.alpha,
+    seed,
+    belowLimit: parameters.belowDetection,
+    closure: 1e6,
+  };
+  const samples = loadSamples(reference, prepared.elements, ID, GROUP);
+  const features = prepareFeatures(samples, options);
+  const fit = fitReference(samples, features, options);
+  const groups = fit.models.map((model, k): Omit<GroupContent, 'version'> => ({
     name: model.name,
     n: model.n,
     effectiveN: model.effectiveN,
     method: model.method,
-    members: groupList[k].members,
-    variables,
+    members: fit.memberRows[k].map((i) => samples.ids[i]),
+    variables: features.variables,
     mean: model.mean,
     covariance: model.covariance,
     robust: model.mcd && {
@@ -98,40 +129,46 @@ export function recomputeRun(prepared: PreparedSamples, parameters: AssignmentPa
     },
   }));
 
-  const distances: DistanceRow[] = [];
-  const assignments: ComputedAssignment[] = [];
-  if (unknownRows.length > 0) {
-    const options = { basis: parameters.probability, alpha: parameters.alpha };
-    classifySamples(models, unknownRows, options).forEach((sample, i) => {
-      const sampleId = unknownIds[i];
-      models.forEach((model, k) =>
-        distances.push({
-          sampleId,
-          group: model.name,
-          d2: sample.d2[k],
-          pChi2: sample.pChi2[k],
-          pHotelling: sample.pHotelling[k],
-        }),
-      );
-      const { verdict, group, probability, runnerUp, runnerUpProbability } = sample.verdict;
-      assignments.push({ sampleId, verdict, group, probability, runnerUp, runnerUpProbability });
-    });
-  }
-
-  const check = leaveOneOutCheck(
-    models,
-    groupList.map((group) => group.rows),
-    parameters.probability,
-    parameters.alpha,
-  );
-  const members = check.members.map((member): MemberRow => ({
-    sampleId: groupList[models.findIndex((m) => m.name === member.group)].members[member.index],
-    group: member.group,
-    d2: member.d2,
-    d2Loo: member.d2LeaveOneOut,
-    pHotellingLoo: member.pHotellingLeaveOneOut,
-    verdictLoo: member.outcome,
-  }));
-  const separation = pairwiseHotelling(groupList, variables).map((pair): SeparationRow => ({ ...pair }));
-  return { transformed, groups, distances, assignments, members, separation };
+  const classified = unknowns ? classifyTables(reference, unknowns, options) : { distances: [], assignments: [] };
+  const checked = checkTable(reference, options);
+  const text = (cell: string | number | null) => cell as string;
+  const number = (cell: string | number | null) => cell as number;
+  return {
+    transformed,
+    groups,
+    distances: classified.distances.map(([sampleId, group, d2, pChi2, pHotelling]) => ({
+      sampleId: text(sampleId),
+      group: text(group),
+      d2: number(d2),
+      pChi2: number(pChi2),
+      pHotelling: number(pHotelling),
+    })),
+    assignments: classified.assignments.map(
+      ([sampleId, verdict, group, probability, runnerUp, runnerUpProbability]) => ({
+        sampleId: text(sampleId),
+        verdict: text(verdict) as AssignmentVerdict,
+        group: text(group),
+        probability: number(probability),
+        runnerUp: runnerUp === null ? null : text(runnerUp),
+        runnerUpProbability: runnerUpProbability === null ? null : number(runnerUpProbability),
+      }),
+    ),
+    members: checked.members.map(([sampleId, group, d2, d2Loo, pHotellingLoo, verdictLoo]) => ({
+      sampleId: text(sampleId),
+      group: text(group),
+      d2: number(d2),
+      d2Loo: number(d2Loo),
+      pHotellingLoo: number(pHotellingLoo),
+      verdictLoo: text(verdictLoo),
+    })),
+    separation: checked.separation.map(([groupA, groupB, t2, f, df1, df2, p]) => ({
+      groupA: text(groupA),
+      groupB: text(groupB),
+      t2: number(t2),
+      f: number(f),
+      df1: number(df1),
+      df2: number(df2),
+      p: number(p),
+    })),
+  };
 }
