@@ -206,3 +206,20 @@ export const signOffSchema = z.object({
   statement: z.string().trim().max(2000).default(''),
 });
 export type SignOff = z.infer<typeof signOffSchema>;
+
+/** GET /api/labs/:labId/studies/:studyId/group-sizes — n against p for the chosen groups (engine's assessment). */
+export const groupSizesSchema = z.object({
+  p: z.number().int(),
+  alpha: z.number(),
+  groups: z.array(
+    z.object({
+      group: z.string(),
+      n: z.number().int(),
+      p: z.number().int(),
+      status: z.enum(['ok', 'warning', 'error']),
+      messages: z.array(z.string()),
+      chiSquareFalseRejectionRate: z.number().nullable(),
+    }),
+  ),
+});
+export type GroupSizes = z.infer<typeof groupSizesSchema>;

@@ -1,0 +1,122 @@
+import { Group, Select, TextInput } from '@mantine/core';
+import { useDebouncedValue } from '@mantine/hooks';
+import { DataTable, type DataTableSortStatus } from 'mantine-datatable';
+import 'mantine-datatable/styles.css';
+import { useState } from 'react';
+import { assignmentVerdicts, type AssignmentRow, type AssignmentsQuery } from '@provenote/shared/schemas';
+import { errorMessage } from '../../studies/api/http';
+import { useAssignments } from '../api/assignments';
+import { AssignmentDrawer } from './AssignmentDrawer';
+
+const formatP = (p: number | null) => (p === null ? '—' : p < 0.001 ? p.toExponential(2) : p.toFixed(3));
+const sortable = new Set<string>(['sampleId', 'verdict', 'group', 'probability', 'runnerUpProbability']);
+
+/** The unknowns of one assign run: server-side paging, sorting, filtering and search (100,000 rows and more). */
+export function AssignmentsTable({ labId, runId }: { labId: string; runId: string }) {
+  const [page, setPage] = useState(1);
+  const [verdict, setVerdict] = useState<string | null>(null);
+  const [group, setGroup] = useState<string | null>(null);
+  const [search, setSearch] = useState('');
+  const [debouncedSearch] = useDebouncedValue(search.trim(), 300);
+  const [sortStatus, setSortStatus] = useState<DataTableSortStatus<AssignmentRow>>({
+    columnAccessor: 'sampleId',
+    direction: 'asc',
+  });
+  const [open, setOpen] = useState<AssignmentRow | null>(null);
+  const results = useAssignments(labId, runId, {
+    page,
+    sort: sortable.has(String(sortStatus.columnAccessor))
+      ? (sortStatus.columnAccessor as AssignmentsQuery['sort'])
+      : 'input',
+    order: sortStatus.direction,
+    verdict: (verdict ?? undefined) as AssignmentsQuery['verdict'],
+    group: group ?? undefined,
+    search: debouncedSearch || undefined,
+  });
+  const data = results.data;
+  const resetPage =
+    <T,>(set: (v: T) => void) =>
+    (v: T) => {
+      setPage(1);
+      set(v);
+    };
+
+  return (
+    <>
+      <Group grow>
+        <TextInput
+          label="Search"
+          placeholder="Sample id starts with…"
+          value={search}
+          onChange={(e) => resetPage(setSearch)(e.currentTarget.value)}
+        />
+        <Select
+          label="Verdict"
+          data={[...assignmentVerdicts]}
+          value={verdict}
+          onChange={resetPage(setVerdict)}
+          clearable
+        />
+        <Select
+          label="Group"
+          data={data?.groups.map((g) => g.name) ?? []}
+          value={group}
+          onChange={resetPage(setGroup)}
+          clearable
+        />
+      </Group>
+      <DataTable<AssignmentRow>
+        aria-label="Assignments of the unknowns"
+        withTableBorder
+        striped
+        highlightOnHover
+        minHeight={200}
+        idAccessor="sampleId"
+        records={data?.rows ?? []}
+        fetching={results.isFetching}
+        totalRecords={data?.total ?? 0}
+        recordsPerPage={data?.pageSize ?? 50}
+        page={page}
+        onPageChange={setPage}
+        sortStatus={sortStatus}
+        onSortStatusChange={(s) => {
+          setPage(1);
+          setSortStatus(s);
+        }}
+        noRecordsText={
+          results.isError ? `Could not load the results: ${errorMessage(results.error)}` : 'No unknowns match'
+        }
+        onRowClick={({ record }) => setOpen(record)}
+        columns={[
+          { accessor: 'sampleId', title: 'Sample', sortable: true },
+          { accessor: 'verdict', title: 'Verdict', sortable: true },
+          { accessor: 'group', title: 'Best group', sortable: true },
+          {
+            accessor: 'probability',
+            title: 'Probability',
+            sortable: true,
+            textAlign: 'right',
+            render: (r) => formatP(r.probability),
+          },
+          { accessor: 'runnerUp', title: 'Runner-up', render: (r) => r.runnerUp ?? '—' },
+          {
+            accessor: 'runnerUpProbability',
+            title: 'Runner-up probability',
+            sortable: true,
+            textAlign: 'right',
+            render: (r) => formatP(r.runnerUpProbability),
+          },
+          ...(data?.groups ?? []).map((g, i) => ({
+            accessor: `d2-${g.name}`,
+            title: `D² ${g.name}`,
+            textAlign: 'right' as const,
+            render: (r: AssignmentRow) => r.d2[i].toFixed(2),
+          })),
+        ]}
+      />
+      {data && (
+        <AssignmentDrawer row={open} groups={data.groups} variables={data.variables} onClose={() => setOpen(null)} />
+      )}
+    </>
+  );
+}

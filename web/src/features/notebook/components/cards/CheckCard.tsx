@@ -1,0 +1,125 @@
+import { ActionIcon, Button, Group, Select, Stack, Table, Text, Textarea } from '@mantine/core';
+import { useState } from 'react';
+import type { MemberExclusion, StepParameters } from '@provenote/shared/schemas';
+import type { CardProps } from './card-props';
+
+interface Props extends CardProps {
+  /** Analysts and PIs vet the groups; others read the card. */
+  mayExclude: boolean;
+  onRun: () => void;
+  running: boolean;
+  runBlocked: boolean;
+  memberOptions: { value: string; label: string; group: string }[];
+}
+
+/** The group check: run leave-one-out on the queue, and exclude members with a written reason. */
+export function CheckCard({
+  step,
+  readOnly,
+  onSave,
+  saving,
+  errors,
+  mayExclude,
+  onRun,
+  running,
+  runBlocked,
+  memberOptions,
+}: Props) {
+  const saved = (step.parameters as StepParameters['check'] | null)?.exclusions ?? [];
+  const [member, setMember] = useState<string | null>(null);
+  const [reason, setReason] = useState('');
+  const editable = !readOnly && mayExclude;
+  const save = (exclusions: MemberExclusion[]) => onSave({ exclusions });
+  const chosen = memberOptions.find((o) => o.value === member);
+
+  return (
+    <Stack gap="sm">
+      {!readOnly && (
+        <Group>
+          <Button onClick={onRun} loading={running} disabled={runBlocked || !mayExclude}>
+            {step.status === 'not_run' ? 'Run group check' : 'Run group check again'}
+          </Button>
+          {!mayExclude && <Text size="sm">Analysts and PIs run the group check.</Text>}
+        </Group>
+      )}
+      {step.status === 'current' && (
+        <Text size="sm">
+          The leave-one-out results are in run {step.runId}; open the run to read each member's verdict and the pairwise
+          separation.
+        </Text>
+      )}
+      <Text fw={500} size="sm">
+        Excluded members ({saved.length})
+      </Text>
+      {saved.length === 0 ? (
+        <Text size="sm" c="dimmed">
+          No member is excluded. Exclude a member only with a reason someone else can check later.
+        </Text>
+      ) : (
+        <Table aria-label="Excluded members">
+          <Table.Thead>
+            <Table.Tr>
+              <Table.Th>Sample</Table.Th>
+              <Table.Th>Group</Table.Th>
+              <Table.Th>Reason</Table.Th>
+              {editable && <Table.Th aria-label="Actions" />}
+            </Table.Tr>
+          </Table.Thead>
+          <Table.Tbody>
+            {saved.map((e) => (
+              <Table.Tr key={`${e.group}/${e.sampleId}`}>
+                <Table.Td>{e.sampleId}</Table.Td>
+                <Table.Td>{e.group}</Table.Td>
+                <Table.Td>{e.reason}</Table.Td>
+                {editable && (
+                  <Table.Td>
+                    <ActionIcon
+                      variant="subtle"
+                      aria-label={`Put ${e.sampleId} back into ${e.group}`}
+                      onClick={() => save(saved.filter((x) => x !== e))}
+                    >
+                      ↺
+                    </ActionIcon>
+                  </Table.Td>
+                )}
+              </Table.Tr>
+            ))}
+          </Table.Tbody>
+        </Table>
+      )}
+      {editable && (
+        <Stack gap="xs">
+          <Select
+            label="Member to exclude"
+            data={memberOptions}
+            value={member}
+            onChange={setMember}
+            searchable
+            clearable
+          />
+          <Textarea
+            label="Reason"
+            description="Kept in the study's record, e.g. a field note or a lab log entry."
+            value={reason}
+            onChange={(e) => setReason(e.currentTarget.value)}
+            error={errors['exclusions']}
+            autosize
+            minRows={2}
+          />
+          <Group>
+            <Button
+              variant="light"
+              disabled={!chosen}
+              loading={saving}
+              onClick={() =>
+                chosen && save([...saved, { sampleId: chosen.value.split('\u0000')[1], group: chosen.group, reason }])
+              }
+            >
+              Exclude member
+            </Button>
+          </Group>
+        </Stack>
+      )}
+    </Stack>
+  );
+}
