@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { displayNameSchema, emailSchema, labNameSchema, passwordSchema } from './auth';
+import { displayNameSchema, emailSchema, labNameSchema, passwordSchema, userSchema } from './auth';
 import { labRoleSchema } from './roles';
 
 /** GET /api/labs/:labId */
@@ -79,3 +79,6 @@ export const outboxMailSchema = z.object({
 });
 export type OutboxMail = z.infer<typeof outboxMailSchema>;
 export const outboxSchema = z.array(outboxMailSchema);
+
+/** The answer of accepting an invitation: the person is signed in, and a member of the lab. */
+export const acceptedInvitationSchema = z.object({ user: userSchema, labId: z.uuid() });

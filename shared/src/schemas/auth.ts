@@ -74,3 +74,11 @@ export const demoAccountsSchema = z.object({
   password: z.string().nullable(),
 });
 export type DemoAccounts = z.infer<typeof demoAccountsSchema>;
+
+/** The answer of sign-in and of confirming a sign-up: the session itself travels in the cookie. */
+export const signedInSchema = z.object({ user: userSchema });
+
+/** The form that chooses a new password: typed twice, so a typo does not lock the person out. */
+export const newPasswordFormSchema = z
+  .object({ password: passwordSchema, repeat: z.string() })
+  .refine((values) => values.password === values.repeat, { path: ['repeat'], error: 'The two passwords differ' });

@@ -1,18 +1,39 @@
 import { createBrowserRouter, type RouteObject } from 'react-router-dom';
 import { AppLayout } from '../components/AppLayout';
 import { NotFoundPage } from '../components/NotFoundPage';
+import { AuditLogPage } from '../features/audit/components/AuditLogPage';
+import { AcceptInvitationPage } from '../features/auth/components/AcceptInvitationPage';
+import { ConfirmSignUpPage } from '../features/auth/components/ConfirmSignUpPage';
+import { ForgotPasswordPage } from '../features/auth/components/ForgotPasswordPage';
+import { RequireSession } from '../features/auth/components/RequireSession';
+import { ResetPasswordPage } from '../features/auth/components/ResetPasswordPage';
 import { SignInPage } from '../features/auth/components/SignInPage';
 import { NotebookPage } from '../features/notebook/components/NotebookPage';
 import { StudyListPage } from '../features/studies/components/StudyListPage';
+import { SignUpPage } from '../features/auth/components/SignUpPage';
+import { MembersPage } from '../features/members/components/MembersPage';
+import { OutboxPage } from '../features/outbox/components/OutboxPage';
 
 export const routes: RouteObject[] = [
   { path: '/sign-in', element: <SignInPage /> },
+  { path: '/sign-up', element: <SignUpPage /> },
+  { path: '/confirm-sign-up', element: <ConfirmSignUpPage /> },
+  { path: '/forgot-password', element: <ForgotPasswordPage /> },
+  { path: '/reset-password', element: <ResetPasswordPage /> },
+  { path: '/accept-invitation', element: <AcceptInvitationPage /> },
   {
-    element: <AppLayout />,
+    element: (
+      <RequireSession>
+        <AppLayout />
+      </RequireSession>
+    ),
     children: [
       { index: true, element: <StudyListPage /> },
       { path: '/labs/:labId', element: <StudyListPage /> },
       { path: '/labs/:labId/studies/:studyId', element: <NotebookPage /> },
+      { path: '/labs/:labId/members', element: <MembersPage /> },
+      { path: '/labs/:labId/audit', element: <AuditLogPage /> },
+      { path: '/labs/:labId/outbox', element: <OutboxPage /> },
       { path: '*', element: <NotFoundPage /> },
     ],
   },
