@@ -1,11 +1,12 @@
 import { cpus, loadavg, platform, release } from 'node:os';
 import { join } from 'node:path';
 import type { BenchFigure, BenchSection } from './bench-section';
+import { bundleBench } from './bundle.bench';
 import { engineBench } from './engine.bench';
 import { mergeResults, type BenchResults } from './results-file';
 
 /** Sections run in this order; further sections (import, API, bundle) are appended here. */
-export const SECTIONS: readonly BenchSection[] = [engineBench];
+export const SECTIONS: readonly BenchSection[] = [engineBench, bundleBench];
 
 export function formatTable(figures: readonly BenchFigure[]): string {
   const width = Math.max(...figures.map((f) => f.label.length));
