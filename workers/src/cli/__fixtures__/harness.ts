@@ -20,6 +20,8 @@ export function run(argv: string[]): { code: number; stdout: string; stderr: str
   let stdout = '';
   let stderr = '';
   const code = main(argv, { write: (t) => void (stdout += t) }, { write: (t) => void (stderr += t) });
+  // classify and check are synchronous; only verify (not driven from here) returns a promise.
+  if (typeof code !== 'number') throw new Error(`run() drives the synchronous commands, not "${argv[0]}"`);
   return { code, stdout, stderr };
 }
 
