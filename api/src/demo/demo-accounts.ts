@@ -10,4 +10,5 @@ export const DEMO_ACCOUNTS: { email: string; displayName: string; role: LabRole 
   { email: 'pi@demo.provenote.test', displayName: 'Dr. Ines Varga (demo PI)', role: 'pi' },
   { email: 'analyst@demo.provenote.test', displayName: 'Tomas Lind (demo analyst)', role: 'analyst' },
   { email: 'student@demo.provenote.test', displayName: 'Aiko Sato (demo student)', role: 'student' },
+  { email: 'guest@demo.provenote.test', displayName: 'Lena Brandt (demo guest)', role: 'guest' },
 ];
