@@ -9,7 +9,8 @@ import { RunsService } from '../runs/runs.service';
 import { queuePrefix } from './queue-prefix';
 
 const repoRoot = join(__dirname, '..', '..', '..');
-const LOCK_MS = 1000;
+// Short enough for a quick takeover, long enough that a busy test machine does not look like a dead worker.
+const LOCK_MS = 3000;
 
 /** A real `npm run worker` process (the compiled entry), on the test's database and queue. */
 function startWorker(testApp: TestApp): ChildProcess {
