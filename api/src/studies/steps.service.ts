@@ -7,6 +7,7 @@ import {
   stepBlocker,
   stepLabels,
   stepParametersSchemas,
+  type GroupSizes,
   type StepEditResult,
   type StepKey,
   type StepParameters,
@@ -14,6 +15,7 @@ import {
 import { AuditService } from '../audit/audit.service';
 import type { AuthUser, LabMembership } from '../auth/auth.types';
 import { GroupsService } from '../groups/groups.service';
+import { groupSizes } from './group-sizes';
 import { assertMayEdit } from './study-access';
 import { StudyStepEntity } from './study-step.entity';
 import { StudiesService } from './studies.service';
@@ -92,6 +94,12 @@ export class StepsService {
       return stale;
     });
     return { study: await this.studies.get(labId, studyId), staleSteps };
+  }
+
+  async groupSizes(labId: string, studyId: string): Promise<GroupSizes> {
+    const { steps } = await this.studies.load(labId, studyId);
+    const chosen = steps.find((s) => s.key === 'groups')?.parameters as StepParameters['groups'] | null;
+    return groupSizes(steps, await this.groups.membersByName(this.dataSource.manager, chosen?.groupVersionIds ?? []));
   }
 
   /** Settings that are valid alone but must also fit the cards above (and the person's role). */

@@ -1,11 +1,12 @@
 import { Body, Controller, Delete, Get, HttpCode, Param, ParseUUIDPipe, Patch, Post, Put } from '@nestjs/common';
 import { ApiTags } from '@nestjs/swagger';
-import { stepKeySchema, type StepEditResult, type Study, type StudyList } from '@provenote/shared';
+import { stepKeySchema, type GroupSizes, type StepEditResult, type Study, type StudyList } from '@provenote/shared';
 import type { AuthUser, LabMembership } from '../auth/auth.types';
 import { CurrentMembership, CurrentUser } from '../auth/current-user.decorator';
 import { ANY_LAB_ROLE, Roles } from '../auth/roles.decorator';
 import { SignOffService } from './sign-off.service';
 import { StepsService } from './steps.service';
+import { StudyRunsService } from './study-runs.service';
 import { StudiesService } from './studies.service';
 import { CopyStudyDto, CreateStudyDto, SignOffDto, UpdateStepDto, UpdateStudyDto } from './studies.dto';
 
@@ -18,6 +19,7 @@ export class StudiesController {
     private readonly studies: StudiesService,
     private readonly steps: StepsService,
     private readonly signOffs: SignOffService,
+    private readonly studyRuns: StudyRunsService,
   ) {}
 
   @Roles(...ANY_LAB_ROLE)
@@ -84,6 +86,24 @@ export class StudiesController {
     @CurrentUser() user: AuthUser,
   ): Promise<StepEditResult> {
     return this.steps.edit(labId, studyId, stepKeySchema.parse(stepKey), body.parameters, membership, user);
+  }
+
+  @Roles(...ANY_LAB_ROLE)
+  @Get(':studyId/group-sizes')
+  groupSizes(@Param('labId') labId: string, @Param('studyId', uuid) studyId: string): Promise<GroupSizes> {
+    return this.steps.groupSizes(labId, studyId);
+  }
+
+  @Roles('pi', 'analyst', 'student')
+  @Post(':studyId/steps/:stepKey/run')
+  startRun(
+    @Param('labId') labId: string,
+    @Param('studyId', uuid) studyId: string,
+    @Param('stepKey') stepKey: string,
+    @CurrentMembership() membership: LabMembership,
+    @CurrentUser() user: AuthUser,
+  ): Promise<Study> {
+    return this.studyRuns.start(labId, studyId, stepKeySchema.parse(stepKey), membership, user);
   }
 
   @Roles('pi')

@@ -5,6 +5,7 @@ import { SignOffService } from './sign-off.service';
 import { StepsService } from './steps.service';
 import { StudiesController } from './studies.controller';
 import { StudiesService } from './studies.service';
+import { StudyRunsService } from './study-runs.service';
 import { StudyOverrideEntity } from './study-override.entity';
 import { StudyStepEntity } from './study-step.entity';
 import { StudyEntity } from './study.entity';
@@ -12,7 +13,7 @@ import { StudyEntity } from './study.entity';
 @Module({
   imports: [TypeOrmModule.forFeature([StudyEntity, StudyStepEntity, StudyOverrideEntity]), GroupsModule],
   controllers: [StudiesController],
-  providers: [StudiesService, StepsService, SignOffService],
+  providers: [StudiesService, StepsService, SignOffService, StudyRunsService],
   exports: [StudiesService],
 })
 export class StudiesModule {}

@@ -13,6 +13,7 @@ import {
 import { AuditService } from '../audit/audit.service';
 import type { AuthUser, LabMembership } from '../auth/auth.types';
 import { planCopy } from './copy-plan';
+import { reconcileRuns } from './reconcile-runs';
 import { assertMayEdit, requireStudy } from './study-access';
 import { StudyStepEntity } from './study-step.entity';
 import { StudyEntity } from './study.entity';
@@ -46,6 +47,7 @@ export class StudiesService {
       relations: { updatedBy: true },
       order: { position: 'ASC' },
     });
+    await reconcileRuns(manager, steps);
     return { study, steps };
   }
 

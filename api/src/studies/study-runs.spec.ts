@@ -1,0 +1,113 @@
+import type { FileLayout, Study } from '@provenote/shared';
+import { mulberry32 } from '@provenote/shared';
+import { createLabWithMembers, type Agent, type SignedInMember } from '../../test/auth-helpers';
+import { waitForRun } from '../../test/run-waits';
+import { createTestApp, type TestApp } from '../../test/test-app';
+
+/** A synthetic, seeded lab file: three groups with distinct log-normal centres on three elements. */
+function syntheticCsv(kind: 'reference' | 'unknowns', seed: number): { csv: string; groups: Record<string, string[]> } {
+  const random = mulberry32(seed);
+  const centres: Record<string, number[]> = { North: [200, 12, 30], South: [90, 25, 45], East: [140, 8, 70] };
+  const groups: Record<string, string[]> = {};
+  const lines = [kind === 'reference' ? 'Sample,Group,Zr ppm,Nb ppm,La ppm' : 'Sample,Zr ppm,Nb ppm,La ppm'];
+  for (const [group, centre] of Object.entries(centres)) {
+    groups[group] = [];
+    for (let i = 1; i <= (kind === 'reference' ? 14 : 3); i++) {
+      const id = `${kind === 'reference' ? group[0] : 'U'}${group[0]}${i}`;
+      groups[group].push(id);
+      const values = centre.map((c) => (c * Math.exp(0.12 * random.normal())).toFixed(3));
+      lines.push([id, ...(kind === 'reference' ? [group] : []), ...values].join(','));
+    }
+  }
+  return { csv: `${lines.join('\n')}\n`, groups };
+}
+
+describe('running the notebook cards on the queue (HTTP, PostgreSQL, Redis)', () => {
+  let testApp: TestApp;
+  let labId: string;
+  let members: Record<'pi' | 'analyst', SignedInMember>;
+  const base = () => `/api/labs/${labId}`;
+
+  async function importCsv(agent: Agent, name: string, kind: 'reference' | 'unknowns', csv: string) {
+    const layout: FileLayout = (
+      await agent.post(`${base()}/dataset-files`).attach('file', Buffer.from(csv), name).expect(201)
+    ).body;
+    const res = await agent
+      .post(`${base()}/datasets`)
+      .send({ name, kind, fileId: layout.file.id, mapping: layout.mapping })
+      .expect(201);
+    return res.body.versions[0].id as string;
+  }
+
+  beforeAll(async () => {
+    testApp = await createTestApp();
+    ({ labId, members } = await createLabWithMembers(testApp, ['pi', 'analyst'] as const));
+  });
+  afterAll(() => testApp.close());
+
+  it('checks the groups, assigns the unknowns, opens Review, and lets the PI sign off', async () => {
+    const agent = members.analyst.agent;
+    const reference = syntheticCsv('reference', 20250501);
+    const referenceVersionId = await importCsv(agent, 'reference.csv', 'reference', reference.csv);
+    const unknownsVersionId = await importCsv(agent, 'unknowns.csv', 'unknowns', syntheticCsv('unknowns', 7).csv);
+    const groupVersionIds: string[] = [];
+    for (const [name, memberIds] of Object.entries(reference.groups)) {
+      const res = await agent
+        .post(`${base()}/groups`)
+        .send({ name, datasetVersionId: referenceVersionId, memberIds })
+        .expect(201);
+      groupVersionIds.push(res.body.versions[0].id);
+    }
+
+    const study: Study = (await agent.post(`${base()}/studies`).send({ name: 'Synthetic core' }).expect(201)).body;
+    const steps = `${base()}/studies/${study.id}/steps`;
+    await agent.put(`${steps}/data`).send({ parameters: { referenceVersionId, unknownsVersionId } }).expect(200);
+    await agent
+      .put(`${steps}/prepare`)
+      .send({
+        parameters: {
+          elements: ['Zr', 'Nb', 'La'],
+          transform: 'ln',
+          alrDenominator: null,
+          belowDetection: 'dl-half',
+          covariance: 'classic',
+          seed: 3,
+        },
+      })
+      .expect(200);
+    await agent.put(`${steps}/groups`).send({ parameters: { groupVersionIds } }).expect(200);
+
+    const sizes = await agent.get(`${base()}/studies/${study.id}/group-sizes`).expect(200);
+    expect(sizes.body.groups.map((g: { n: number; p: number }) => [g.n, g.p])).toEqual([
+      [14, 3],
+      [14, 3],
+      [14, 3],
+    ]);
+
+    await agent.post(`${steps}/assign/run`).expect(400);
+    const checking: Study = (await agent.post(`${steps}/check/run`).expect(201)).body;
+    const check = checking.steps.find((s) => s.key === 'check')!;
+    expect(check.status).toBe('running');
+    await waitForRun(testApp, check.runId!, (run) => run.status === 'succeeded');
+    const checked: Study = (await agent.get(`${base()}/studies/${study.id}`).expect(200)).body;
+    expect(checked.steps.find((s) => s.key === 'check')!.status).toBe('current');
+
+    const assigning: Study = (await agent.post(`${steps}/assign/run`).expect(201)).body;
+    const assignRun = assigning.steps.find((s) => s.key === 'assign')!.runId!;
+    await waitForRun(testApp, assignRun, (run) => run.status === 'succeeded');
+    const assigned: Study = (await members.pi.agent.get(`${base()}/studies/${study.id}`).expect(200)).body;
+    expect(Object.fromEntries(assigned.steps.map((s) => [s.key, s.status]))).toMatchObject({
+      check: 'current',
+      assign: 'current',
+      review: 'current',
+    });
+    expect(assigned.status).toBe('ready_for_review');
+
+    const page = await agent.get(`${base()}/runs/${assignRun}/assignments`).expect(200);
+    expect(page.body.total).toBe(9);
+    expect(page.body.groups.map((g: { name: string }) => g.name).sort()).toEqual(['East', 'North', 'South']);
+
+    await members.pi.agent.post(`${base()}/studies/${study.id}/sign-off`).send({}).expect(201);
+    await agent.post(`${steps}/assign/run`).expect(409);
+  });
+});
