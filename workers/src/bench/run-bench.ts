@@ -33,6 +33,8 @@ export async function runBench(
   log: (line: string) => void = console.log,
 ): Promise<BenchResults> {
   const sections = SECTIONS.filter((s) => only.length === 0 || only.includes(s.name));
+  // Taken before measuring, so the load average describes the machine the figures were measured on.
+  const machine = { ...machineInfo(), 'machine.measured_at': new Date().toISOString() };
   const figures: BenchFigure[] = [];
   for (const section of sections) {
     log(`— ${section.name} —`);
@@ -40,7 +42,7 @@ export async function runBench(
   }
   log('');
   log(formatTable(figures));
-  const results: BenchResults = { ...machineInfo(), 'machine.measured_at': new Date().toISOString() };
+  const results: BenchResults = { ...machine };
   for (const figure of figures) results[figure.key] = figure.value;
   const file = join(root, '.data', 'bench', 'results.json');
   mergeResults(file, results);
