@@ -1,14 +1,29 @@
 import { Body, Controller, Delete, Get, HttpCode, Param, ParseUUIDPipe, Patch, Post, Put } from '@nestjs/common';
 import { ApiTags } from '@nestjs/swagger';
-import { stepKeySchema, type GroupSizes, type StepEditResult, type Study, type StudyList } from '@provenote/shared';
+import {
+  stepKeySchema,
+  type GroupSizes,
+  type Override,
+  type StepEditResult,
+  type Study,
+  type StudyList,
+} from '@provenote/shared';
 import type { AuthUser, LabMembership } from '../auth/auth.types';
 import { CurrentMembership, CurrentUser } from '../auth/current-user.decorator';
 import { ANY_LAB_ROLE, Roles } from '../auth/roles.decorator';
+import { OverridesService } from './overrides.service';
 import { SignOffService } from './sign-off.service';
 import { StepsService } from './steps.service';
 import { StudyRunsService } from './study-runs.service';
 import { StudiesService } from './studies.service';
-import { CopyStudyDto, CreateStudyDto, SignOffDto, UpdateStepDto, UpdateStudyDto } from './studies.dto';
+import {
+  CopyStudyDto,
+  CreateOverrideDto,
+  CreateStudyDto,
+  SignOffDto,
+  UpdateStepDto,
+  UpdateStudyDto,
+} from './studies.dto';
 
 const uuid = new ParseUUIDPipe({ version: '4', errorHttpStatusCode: 404 });
 
@@ -20,6 +35,7 @@ export class StudiesController {
     private readonly steps: StepsService,
     private readonly signOffs: SignOffService,
     private readonly studyRuns: StudyRunsService,
+    private readonly overridesService: OverridesService,
   ) {}
 
   @Roles(...ANY_LAB_ROLE)
@@ -104,6 +120,27 @@ export class StudiesController {
     @CurrentUser() user: AuthUser,
   ): Promise<Study> {
     return this.studyRuns.start(labId, studyId, stepKeySchema.parse(stepKey), membership, user);
+  }
+
+  @Roles(...ANY_LAB_ROLE)
+  @Get(':studyId/overrides')
+  overrides(
+    @Param('labId') labId: string,
+    @Param('studyId', uuid) studyId: string,
+  ): Promise<{ overrides: Override[] }> {
+    return this.overridesService.list(labId, studyId);
+  }
+
+  @Roles('pi', 'analyst')
+  @Post(':studyId/overrides')
+  override(
+    @Param('labId') labId: string,
+    @Param('studyId', uuid) studyId: string,
+    @Body() body: CreateOverrideDto,
+    @CurrentMembership() membership: LabMembership,
+    @CurrentUser() user: AuthUser,
+  ): Promise<{ overrides: Override[] }> {
+    return this.overridesService.create(labId, studyId, body, membership, user);
   }
 
   @Roles('pi')

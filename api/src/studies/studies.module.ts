@@ -1,6 +1,7 @@
 import { Module } from '@nestjs/common';
 import { TypeOrmModule } from '@nestjs/typeorm';
 import { GroupsModule } from '../groups/groups.module';
+import { OverridesService } from './overrides.service';
 import { SignOffService } from './sign-off.service';
 import { StepsService } from './steps.service';
 import { StudiesController } from './studies.controller';
@@ -13,7 +14,7 @@ import { StudyEntity } from './study.entity';
 @Module({
   imports: [TypeOrmModule.forFeature([StudyEntity, StudyStepEntity, StudyOverrideEntity]), GroupsModule],
   controllers: [StudiesController],
-  providers: [StudiesService, StepsService, SignOffService, StudyRunsService],
+  providers: [StudiesService, StepsService, SignOffService, StudyRunsService, OverridesService],
   exports: [StudiesService],
 })
 export class StudiesModule {}

@@ -107,7 +107,31 @@ describe('running the notebook cards on the queue (HTTP, PostgreSQL, Redis)', ()
     expect(page.body.total).toBe(9);
     expect(page.body.groups.map((g: { name: string }) => g.name).sort()).toEqual(['East', 'North', 'South']);
 
+    const overrides = `${base()}/studies/${study.id}/overrides`;
+    const computed = page.body.rows.find((r: { sampleId: string }) => r.sampleId === 'UN1');
+    const reason = 'Field log puts this core interval below the South fan outlet';
+    await agent
+      .post(overrides)
+      .send({ sampleId: 'UN1', verdict: 'assigned', group: 'South', reason: 'short' })
+      .expect(400);
+    await agent.post(overrides).send({ sampleId: 'nope', verdict: 'assigned', group: 'South', reason }).expect(400);
+    const overridden = await agent
+      .post(overrides)
+      .send({ sampleId: 'UN1', verdict: 'assigned', group: 'South', reason })
+      .expect(201);
+    expect(overridden.body.overrides).toEqual([
+      expect.objectContaining({
+        sampleId: 'UN1',
+        computedVerdict: computed.verdict,
+        verdict: 'assigned',
+        group: 'South',
+        reason,
+        createdBy: members.analyst.user.displayName,
+      }),
+    ]);
+
     await members.pi.agent.post(`${base()}/studies/${study.id}/sign-off`).send({}).expect(201);
     await agent.post(`${steps}/assign/run`).expect(409);
+    await agent.post(overrides).send({ sampleId: 'UN1', verdict: 'unassigned', group: null, reason }).expect(409);
   });
 });
