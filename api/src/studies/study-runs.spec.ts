@@ -36,7 +36,7 @@ describe('running the notebook cards on the queue (HTTP, PostgreSQL, Redis)', ()
       .post(`${base()}/datasets`)
       .send({ name, kind, fileId: layout.file.id, mapping: layout.mapping })
       .expect(201);
-    return res.body.versions[0].id as string;
+    return { versionId: res.body.versions[0].id as string, datasetId: res.body.id as string };
   }
 
   beforeAll(async () => {
@@ -48,8 +48,10 @@ describe('running the notebook cards on the queue (HTTP, PostgreSQL, Redis)', ()
   it('checks the groups, assigns the unknowns, opens Review, and lets the PI sign off', async () => {
     const agent = members.analyst.agent;
     const reference = syntheticCsv('reference', 20250501);
-    const referenceVersionId = await importCsv(agent, 'reference.csv', 'reference', reference.csv);
-    const unknownsVersionId = await importCsv(agent, 'unknowns.csv', 'unknowns', syntheticCsv('unknowns', 7).csv);
+    const referenceData = await importCsv(agent, 'reference.csv', 'reference', reference.csv);
+    const referenceVersionId = referenceData.versionId;
+    const unknownsVersionId = (await importCsv(agent, 'unknowns.csv', 'unknowns', syntheticCsv('unknowns', 7).csv))
+      .versionId;
     const groupVersionIds: string[] = [];
     for (const [name, memberIds] of Object.entries(reference.groups)) {
       const res = await agent
@@ -133,5 +135,7 @@ describe('running the notebook cards on the queue (HTTP, PostgreSQL, Redis)', ()
     await members.pi.agent.post(`${base()}/studies/${study.id}/sign-off`).send({}).expect(201);
     await agent.post(`${steps}/assign/run`).expect(409);
     await agent.post(overrides).send({ sampleId: 'UN1', verdict: 'unassigned', group: null, reason }).expect(409);
+    const deletion = await members.pi.agent.delete(`${base()}/datasets/${referenceData.datasetId}`).expect(409);
+    expect(deletion.body.errors[0].message).toBe('study "Synthetic core", signed off, uses this data');
   });
 });
