@@ -94,15 +94,26 @@ export class DatasetsService {
       createdBy: user.id,
     });
     let problemPosition = 1;
-    const { summary, columns, fingerprint } = await asHttpErrors(() =>
-      importFile(file.content, file.filename, input.mapping, dataset.kind, {
-        rows: (batch) => insertRows(manager, version.id, batch),
-        problems: async (batch) => {
-          await insertProblems(manager, version.id, problemPosition, batch);
+    // One write in flight while the next batch is parsed: the connection runs them in order, and
+    // parsing overlaps the database's work instead of waiting for it.
+    let inFlight: Promise<void> = Promise.resolve();
+    const write = (next: () => Promise<void>) => {
+      const previous = inFlight;
+      inFlight = previous.then(next);
+      return previous;
+    };
+    const { summary, columns, fingerprint } = await asHttpErrors(async () => {
+      const result = await importFile(file.content, file.filename, input.mapping, dataset.kind, {
+        rows: (batch) => write(() => insertRows(manager, version.id, batch)),
+        problems: (batch) => {
+          const first = problemPosition;
           problemPosition += batch.length;
+          return write(() => insertProblems(manager, version.id, first, batch));
         },
-      }),
-    );
+      });
+      await inFlight;
+      return result;
+    });
     if (summary.imported === 0) {
       throw new UnprocessableEntityException({
         message: 'The file has no rows that can be imported',

@@ -1,6 +1,6 @@
 import { type CellFlag, type ImportSummary, type Problem, cellFlags, cellFlagLabels } from '@provenote/shared';
 import { type Layout, cellText, isBlankRow } from './layout';
-import { readCell } from './read-cell';
+import { isPlainNumber, readCell } from './read-cell';
 import type { ResolvedMapping } from './resolve-columns';
 import type { RawRow, TableSource } from './table-source';
 
@@ -163,7 +163,7 @@ function readMeasurements(
     original[j] = reading.value;
     ppm[j] = reading.value === null ? null : reading.value * column.factorToPpm;
     flags[j] = FLAG_CODE.get(reading.flag)!;
-    raw[j] = typeof cell === 'string' && cell.trim() !== '' && !isPlain(cell) ? cell : null;
+    raw[j] = typeof cell === 'string' && cell.trim() !== '' && !isPlainNumber(cell) ? cell : null;
     const formula = rawRow.formulas?.get(column.index);
     if (formula) {
       raw[j] = formula;
@@ -191,10 +191,4 @@ function readMeasurements(
     if (text !== '') (attributes ??= {})[key] = text;
   }
   return { position, sourceRow: rawRow.row, sampleId: '', group: null, ppm, original, flags, raw, attributes };
-}
-
-/** Text that is exactly how its number prints ("12.5", not "12,5" or "12.50"): the value says it all. */
-function isPlain(cell: string): boolean {
-  const text = cell.trim();
-  return /^-?\d+(\.\d+)?$/.test(text) && text === String(Number(text));
 }

@@ -21,8 +21,9 @@ function numberPattern(decimal: DecimalSeparator): RegExp {
   return new RegExp(`^([+\\-\u2212]?)(${grouped}|\\d+|(?=${point}\\d))(?:${point}(\\d+))?(?:[eE]([+-]?\\d+))?$`);
 }
 
-// Most cells of a large file are plain decimals; they skip the full pattern.
+// Most cells of a large file are plain decimals; they skip the full pattern, and their text need not be kept.
 const PLAIN = /^-?\d+(?:\.\d+)?$/;
+export const isPlainNumber = (text: string): boolean => PLAIN.test(text);
 
 const PATTERNS = { '.': numberPattern('.'), ',': numberPattern(',') };
 

@@ -68,7 +68,26 @@ function openText(bytes: Buffer, options: OpenOptions): TableSource {
   };
 }
 
-async function* csvRows(text: string, delimiter: Delimiter): AsyncIterable<RawRow> {
+function csvRows(text: string, delimiter: Delimiter): AsyncIterable<RawRow> {
+  return text.includes('"') ? quotedCsvRows(text, delimiter) : unquotedCsvRows(text, delimiter);
+}
+
+/**
+ * Without a quote character anywhere, CSV has no escapes: each line is a record and each delimiter ends a
+ * field. Splitting natively is several times faster than the general parser on large instrument exports.
+ */
+async function* unquotedCsvRows(text: string, delimiter: Delimiter): AsyncIterable<RawRow> {
+  let row = 0;
+  for (let start = 0; start < text.length;) {
+    const newline = text.indexOf('\n', start);
+    const end = newline < 0 ? text.length : newline;
+    const line = text.slice(start, end > start && text[end - 1] === '\r' ? end - 1 : end);
+    start = end + 1;
+    yield { row: ++row, cells: line.split(delimiter) };
+  }
+}
+
+async function* quotedCsvRows(text: string, delimiter: Delimiter): AsyncIterable<RawRow> {
   // Chunks keep the parser streaming: records reach the store while later ones are still being split.
   const chunks = function* () {
     for (let i = 0; i < text.length; i += TEXT_CHUNK) yield text.slice(i, i + TEXT_CHUNK);
