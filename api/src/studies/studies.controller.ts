@@ -1,7 +1,8 @@
-import { Body, Controller, Delete, Get, HttpCode, Param, ParseUUIDPipe, Patch, Post, Put } from '@nestjs/common';
+import { Body, Controller, Delete, Get, HttpCode, Param, ParseUUIDPipe, Patch, Post, Put, Query } from '@nestjs/common';
 import { ApiTags } from '@nestjs/swagger';
 import {
   stepKeySchema,
+  type CheckResults,
   type GroupSizes,
   type Override,
   type StepEditResult,
@@ -11,12 +12,14 @@ import {
 import type { AuthUser, LabMembership } from '../auth/auth.types';
 import { CurrentMembership, CurrentUser } from '../auth/current-user.decorator';
 import { ANY_LAB_ROLE, Roles } from '../auth/roles.decorator';
+import { CheckResultsService } from './check-results.service';
 import { OverridesService } from './overrides.service';
 import { SignOffService } from './sign-off.service';
 import { StepsService } from './steps.service';
 import { StudyRunsService } from './study-runs.service';
 import { StudiesService } from './studies.service';
 import {
+  CheckResultsQueryDto,
   CopyStudyDto,
   CreateOverrideDto,
   CreateStudyDto,
@@ -36,6 +39,7 @@ export class StudiesController {
     private readonly signOffs: SignOffService,
     private readonly studyRuns: StudyRunsService,
     private readonly overridesService: OverridesService,
+    private readonly checkResultsService: CheckResultsService,
   ) {}
 
   @Roles(...ANY_LAB_ROLE)
@@ -120,6 +124,16 @@ export class StudiesController {
     @CurrentUser() user: AuthUser,
   ): Promise<Study> {
     return this.studyRuns.start(labId, studyId, stepKeySchema.parse(stepKey), membership, user);
+  }
+
+  @Roles(...ANY_LAB_ROLE)
+  @Get(':studyId/check-results')
+  checkResults(
+    @Param('labId') labId: string,
+    @Param('studyId', uuid) studyId: string,
+    @Query() query: CheckResultsQueryDto,
+  ): Promise<CheckResults> {
+    return this.checkResultsService.get(labId, studyId, query);
   }
 
   @Roles(...ANY_LAB_ROLE)

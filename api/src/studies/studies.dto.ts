@@ -1,5 +1,6 @@
 import { createZodDto } from 'nestjs-zod';
 import {
+  checkResultsQuerySchema,
   copyStudySchema,
   createOverrideSchema,
   createStudySchema,
@@ -14,3 +15,4 @@ export class CopyStudyDto extends createZodDto(copyStudySchema) {}
 export class UpdateStepDto extends createZodDto(updateStepSchema) {}
 export class CreateOverrideDto extends createZodDto(createOverrideSchema) {}
 export class SignOffDto extends createZodDto(signOffSchema) {}
+export class CheckResultsQueryDto extends createZodDto(checkResultsQuerySchema) {}

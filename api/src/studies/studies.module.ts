@@ -2,6 +2,7 @@ import { Module } from '@nestjs/common';
 import { TypeOrmModule } from '@nestjs/typeorm';
 import { DatasetsModule } from '../datasets/datasets.module';
 import { GroupsModule } from '../groups/groups.module';
+import { CheckResultsService } from './check-results.service';
 import { OverridesService } from './overrides.service';
 import { SignOffService } from './sign-off.service';
 import { StepsService } from './steps.service';
@@ -20,7 +21,15 @@ import { StudyEntity } from './study.entity';
     DatasetsModule,
   ],
   controllers: [StudiesController],
-  providers: [StudiesService, StepsService, SignOffService, StudyRunsService, OverridesService, StudyDatasetUsage],
+  providers: [
+    StudiesService,
+    StepsService,
+    SignOffService,
+    StudyRunsService,
+    OverridesService,
+    StudyDatasetUsage,
+    CheckResultsService,
+  ],
   exports: [StudiesService],
 })
 export class StudiesModule {}

@@ -87,12 +87,24 @@ describe('running the notebook cards on the queue (HTTP, PostgreSQL, Redis)', ()
     ]);
 
     await agent.post(`${steps}/assign/run`).expect(400);
+    await agent.get(`${base()}/studies/${study.id}/check-results`).expect(404);
     const checking: Study = (await agent.post(`${steps}/check/run`).expect(201)).body;
     const check = checking.steps.find((s) => s.key === 'check')!;
     expect(check.status).toBe('running');
     await waitForRun(testApp, check.runId!, (run) => run.status === 'succeeded');
     const checked: Study = (await agent.get(`${base()}/studies/${study.id}`).expect(200)).body;
     expect(checked.steps.find((s) => s.key === 'check')!.status).toBe('current');
+    const results = (await agent.get(`${base()}/studies/${study.id}/check-results`).expect(200)).body;
+    expect(results).toMatchObject({ memberCount: 42, members: { total: 42 } });
+    expect(results.pairs).toHaveLength(3);
+    expect(results.kruskalWallis.map((k: { variable: string }) => k.variable)).toHaveLength(3);
+    const confusionTotal = Object.values(results.confusion as Record<string, Record<string, number>>)
+      .flatMap((row) => Object.values(row))
+      .reduce((a, b) => a + b, 0);
+    expect(confusionTotal).toBe(42);
+    const north = (await agent.get(`${base()}/studies/${study.id}/check-results?group=North`).expect(200)).body;
+    expect(north.members.total).toBe(14);
+    expect(new Set(north.members.rows.map((m: { group: string }) => m.group))).toEqual(new Set(['North']));
 
     const assigning: Study = (await agent.post(`${steps}/assign/run`).expect(201)).body;
     const assignRun = assigning.steps.find((s) => s.key === 'assign')!.runId!;

@@ -112,3 +112,66 @@ export function applyRunOutcome<S extends StepState>(
   if (outcome === 'failed') return { ...step, status: 'failed' };
   return { ...step, status: 'stale' };
 }
+
+/** How a member left out of its own group fared against all groups. */
+export const memberOutcomes = ['own_group', 'other_group', 'ambiguous', 'unassigned'] as const;
+export const memberOutcomeSchema = z.enum(memberOutcomes);
+export type MemberOutcome = z.infer<typeof memberOutcomeSchema>;
+
+export const memberOutcomeLabels: Record<MemberOutcome, string> = {
+  own_group: 'Returns to its own group',
+  other_group: 'Assigned to another group',
+  ambiguous: 'Ambiguous',
+  unassigned: 'Unassigned',
+};
+
+/** GET /api/labs/:labId/studies/:studyId/check-results — query string. */
+export const checkResultsQuerySchema = z.object({
+  page: z.coerce.number().int().min(1).default(1),
+  outcome: memberOutcomeSchema.optional(),
+  group: z.string().min(1).optional(),
+});
+export type CheckResultsQuery = z.infer<typeof checkResultsQuerySchema>;
+
+export const CHECK_MEMBERS_PAGE_SIZE = 50;
+
+/** The Group check card's results: per member, per pair of groups, per variable. */
+export const checkResultsSchema = z.object({
+  runId: z.uuid(),
+  groups: z.array(z.object({ name: z.string(), n: z.number().int(), effectiveN: z.number().int() })),
+  variables: z.array(z.string()),
+  /** confusion[own group][assigned group, "ambiguous" or "unassigned"] = members. */
+  confusion: z.record(z.string(), z.record(z.string(), z.number().int())),
+  returnedToOwnGroup: z.number().int(),
+  memberCount: z.number().int(),
+  kruskalWallis: z.array(z.object({ variable: z.string(), h: z.number(), df: z.number().int(), p: z.number() })),
+  pairs: z.array(
+    z.object({
+      groupA: z.string(),
+      groupB: z.string(),
+      t2: z.number(),
+      f: z.number(),
+      df1: z.number().int(),
+      df2: z.number().int(),
+      p: z.number(),
+    }),
+  ),
+  members: z.object({
+    total: z.number().int(),
+    page: z.number().int(),
+    pageSize: z.number().int(),
+    rows: z.array(
+      z.object({
+        sampleId: z.string(),
+        group: z.string(),
+        d2: z.number(),
+        d2LeaveOneOut: z.number(),
+        pChi2LeaveOneOut: z.number(),
+        pHotellingLeaveOneOut: z.number(),
+        outcome: memberOutcomeSchema,
+        bestGroup: z.string(),
+      }),
+    ),
+  }),
+});
+export type CheckResults = z.infer<typeof checkResultsSchema>;
