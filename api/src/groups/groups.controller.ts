@@ -4,7 +4,7 @@ import type { ReferenceGroup, ReferenceGroupList } from '@provenote/shared';
 import type { AuthUser } from '../auth/auth.types';
 import { CurrentUser } from '../auth/current-user.decorator';
 import { ANY_LAB_ROLE, Roles } from '../auth/roles.decorator';
-import { CreateGroupDto, CreateGroupVersionDto, UpdateGroupDto } from './groups.dto';
+import { CreateGroupDto, CreateGroupVersionDto, GroupsFromColumnDto, UpdateGroupDto } from './groups.dto';
 import { GroupsService } from './groups.service';
 
 const uuid = new ParseUUIDPipe({ version: '4', errorHttpStatusCode: 404 });
@@ -30,6 +30,16 @@ export class GroupsController {
   @Post()
   create(@Param('labId') labId: string, @Body() body: CreateGroupDto, @CurrentUser() user: AuthUser) {
     return this.groups.create(labId, body, user);
+  }
+
+  @Roles('pi', 'analyst')
+  @Post('from-column')
+  fromColumn(
+    @Param('labId') labId: string,
+    @Body() body: GroupsFromColumnDto,
+    @CurrentUser() user: AuthUser,
+  ): Promise<ReferenceGroupList> {
+    return this.groups.fromColumn(labId, body.datasetVersionId, user);
   }
 
   @Roles('pi', 'analyst')

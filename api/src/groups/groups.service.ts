@@ -17,6 +17,7 @@ import type {
 } from '@provenote/shared';
 import { AuditService } from '../audit/audit.service';
 import type { AuthUser } from '../auth/auth.types';
+import { assertMembersInDataset } from './dataset-members';
 import { GroupVersionEntity } from './group-version.entity';
 import { ReferenceGroupEntity } from './reference-group.entity';
 
@@ -91,7 +92,7 @@ export class GroupsService {
         const group = await manager
           .getRepository(ReferenceGroupEntity)
           .save({ labId, name: input.name, description: input.description, createdById: user.id });
-        await this.insertVersion(manager, group.id, 'manual', input, user);
+        await this.insertVersion(manager, labId, group.id, 'manual', input, user);
         await this.audit.record(
           {
             labId,
@@ -137,7 +138,7 @@ export class GroupsService {
   async addVersion(labId: string, groupId: string, input: CreateGroupVersion, user: AuthUser): Promise<ReferenceGroup> {
     await this.get(labId, groupId);
     await this.dataSource.transaction(async (manager) => {
-      const version = await this.insertVersion(manager, groupId, 'manual', input, user);
+      const version = await this.insertVersion(manager, labId, groupId, 'manual', input, user);
       await this.audit.record(
         {
           labId,
@@ -177,6 +178,59 @@ export class GroupsService {
     return this.get(labId, groupId);
   }
 
+  /**
+   * One group per value of a reference dataset version's group column. A group of that name that exists
+   * already gets a new version, unless its latest version has exactly these members of this data.
+   */
+  async fromColumn(labId: string, datasetVersionId: string, user: AuthUser): Promise<ReferenceGroupList> {
+    await this.dataSource.transaction(async (manager) => {
+      const [version] = await manager.query(
+        `SELECT v.id FROM dataset_versions v JOIN datasets d ON d.id = v.dataset_id
+         WHERE v.id = $1 AND v.lab_id = $2 AND d.kind = 'reference'`,
+        [datasetVersionId, labId],
+      );
+      if (!version) throw new BadRequestException('No such reference dataset version in this lab');
+      const rows: { group_name: string; members: string[] }[] = await manager.query(
+        `SELECT group_name, array_agg(sample_id ORDER BY position) AS members FROM dataset_rows
+         WHERE version_id = $1 AND group_name IS NOT NULL AND group_name <> '' GROUP BY group_name ORDER BY group_name`,
+        [datasetVersionId],
+      );
+      if (rows.length === 0) throw new BadRequestException('This dataset version has no group column values');
+      for (const row of rows) {
+        const memberIds = [...new Set(row.members)];
+        const groups = manager.getRepository(ReferenceGroupEntity);
+        const group =
+          (await groups.findOne({ where: { labId, name: row.group_name }, relations: { versions: true } })) ??
+          (await groups.save({ labId, name: row.group_name, description: '', createdById: user.id, versions: [] }));
+        const latest = [...(group.versions ?? [])].sort((a, b) => b.number - a.number)[0];
+        const unchanged =
+          latest?.datasetVersionId === datasetVersionId &&
+          latest.memberIds.length === memberIds.length &&
+          latest.memberIds.every((id, i) => id === memberIds[i]);
+        if (unchanged) continue;
+        const created = await this.insertVersion(
+          manager,
+          labId,
+          group.id,
+          'column',
+          { datasetVersionId, memberIds },
+          user,
+        );
+        await this.audit.record(
+          {
+            labId,
+            actor: user,
+            action: 'group.version_created',
+            target: { type: 'group', id: group.id },
+            details: { version: created.number, members: memberIds.length, source: 'column', datasetVersionId },
+          },
+          manager,
+        );
+      }
+    });
+    return this.list(labId);
+  }
+
   /** Refuses group versions a study may not use: another lab's, unapproved for a student, other data. */
   async assertUsable(manager: EntityManager, labId: string, versionIds: string[], options: UsableOptions) {
     const versions = await manager
@@ -211,11 +265,13 @@ export class GroupsService {
 
   private async insertVersion(
     manager: EntityManager,
+    labId: string,
     groupId: string,
     source: 'column' | 'manual',
     input: { datasetVersionId: string; memberIds: string[]; note?: string },
     user: AuthUser,
   ): Promise<GroupVersionEntity> {
+    if (source === 'manual') await assertMembersInDataset(manager, labId, input.datasetVersionId, input.memberIds);
     const repository = manager.getRepository(GroupVersionEntity);
     const latest = await repository.findOne({
       where: { groupId },

@@ -15,6 +15,7 @@ import {
 import { AuditService } from '../audit/audit.service';
 import type { AuthUser, LabMembership } from '../auth/auth.types';
 import { GroupsService } from '../groups/groups.service';
+import { assertDataStep } from './data-step-check';
 import { groupSizes } from './group-sizes';
 import { assertMayEdit } from './study-access';
 import { StudyStepEntity } from './study-step.entity';
@@ -111,6 +112,7 @@ export class StepsService {
     steps: StudyStepEntity[],
     membership: LabMembership,
   ) {
+    if (key === 'data') await assertDataStep(manager, labId, parameters as StepParameters['data']);
     const data = steps.find((s) => s.key === 'data')?.parameters as StepParameters['data'] | null;
     if (key === 'groups') {
       const { groupVersionIds } = parameters as StepParameters['groups'];

@@ -13,6 +13,7 @@ import {
 import { AuditService } from '../audit/audit.service';
 import type { AuthUser, LabMembership } from '../auth/auth.types';
 import { planCopy } from './copy-plan';
+import { assertDataStep } from './data-step-check';
 import { reconcileRuns } from './reconcile-runs';
 import { assertMayEdit, requireStudy } from './study-access';
 import { StudyStepEntity } from './study-step.entity';
@@ -87,6 +88,7 @@ export class StudiesService {
   async copy(labId: string, studyId: string, input: CopyStudy, user: AuthUser): Promise<Study> {
     const id = await this.dataSource.transaction(async (manager) => {
       const { study: source, steps } = await this.load(labId, studyId, manager);
+      await assertDataStep(manager, labId, input.data);
       const copy = await this.insertStudy(
         manager,
         labId,

@@ -21,7 +21,27 @@ describe('studies and their step cards (HTTP, PostgreSQL)', () => {
   let labId: string;
   let members: Members;
   let otherLab: { labId: string; members: Record<'analyst', SignedInMember> };
-  const referenceVersionId = randomUUID();
+  let referenceVersionId: string;
+  let unknownsVersionId: string;
+  let otherReferenceVersionId: string;
+
+  /** A small synthetic lab file, imported through the datasets API. */
+  async function importCsv(name: string, kind: 'reference' | 'unknowns', csv: string): Promise<string> {
+    const agent = members.analyst.agent;
+    const layout = (
+      await agent.post(`/api/labs/${labId}/dataset-files`).attach('file', Buffer.from(csv), name).expect(201)
+    ).body;
+    const res = await agent
+      .post(`/api/labs/${labId}/datasets`)
+      .send({ name, kind, fileId: layout.file.id, mapping: layout.mapping })
+      .expect(201);
+    return res.body.versions[0].id;
+  }
+  const referenceCsv = [
+    'Sample,Group,Zr ppm,Nb ppm,La ppm,Th ppm',
+    ...['N1', 'N2', 'N3'].map((id, i) => `${id},North ridge,${210 + i},${12 + i},${31 + i},${9 + i}`),
+    ...['S1', 'S2', 'S3'].map((id, i) => `${id},South fan,${95 + i},${24 + i},${44 + i},${14 + i}`),
+  ].join('\n');
 
   const base = () => `/api/labs/${labId}/studies`;
   const statuses = (study: Study) => Object.fromEntries(study.steps.map((s) => [s.key, s.status]));
@@ -70,6 +90,13 @@ describe('studies and their step cards (HTTP, PostgreSQL)', () => {
     testApp = await createTestApp();
     ({ labId, members } = await createLabWithMembers(testApp, ['pi', 'analyst', 'student', 'guest'] as const));
     otherLab = await createLabWithMembers(testApp, ['analyst'] as const);
+    referenceVersionId = await importCsv('reference.csv', 'reference', referenceCsv);
+    otherReferenceVersionId = await importCsv('reference-2.csv', 'reference', referenceCsv);
+    unknownsVersionId = await importCsv(
+      'unknowns.csv',
+      'unknowns',
+      'Sample,Zr ppm,Nb ppm,La ppm,Th ppm\nU1,150,18,40,12\n',
+    );
     north = await createGroup('North ridge', ['N1', 'N2', 'N3']);
     south = await createGroup('South fan', ['S1', 'S2', 'S3']);
   });
@@ -90,6 +117,47 @@ describe('studies and their step cards (HTTP, PostgreSQL)', () => {
     await otherLab.members.analyst.agent.get(base()).expect(404);
     const study = await createStudy(members.analyst);
     await otherLab.members.analyst.agent.get(`/api/labs/${otherLab.labId}/studies/${study.id}`).expect(404);
+  });
+
+  it('pins only dataset versions of this lab, each of the right kind', async () => {
+    const study = await createStudy(members.analyst);
+    const url = `${base()}/${study.id}/steps/data`;
+    const wrongKind = await members.analyst.agent
+      .put(url)
+      .send({ parameters: { referenceVersionId: unknownsVersionId, unknownsVersionId: null } })
+      .expect(400);
+    expect(wrongKind.body.message).toBe('That dataset version holds unknowns, not reference');
+    await members.analyst.agent
+      .put(url)
+      .send({ parameters: { referenceVersionId: randomUUID(), unknownsVersionId: null } })
+      .expect(400);
+  });
+
+  it('refuses group members that are not samples of the dataset version', async () => {
+    const res = await members.analyst.agent
+      .post(`/api/labs/${labId}/groups`)
+      .send({ name: 'Ghosts', datasetVersionId: referenceVersionId, memberIds: ['N1', 'Q7'] })
+      .expect(400);
+    expect(res.body.message).toBe('Not samples of this dataset version: Q7');
+  });
+
+  it('builds groups from the group column, and a new version only when the members change', async () => {
+    const res = await members.analyst.agent
+      .post(`/api/labs/${labId}/groups/from-column`)
+      .send({ datasetVersionId: otherReferenceVersionId })
+      .expect(201);
+    const northRidge = res.body.groups.find((g: { name: string }) => g.name === 'North ridge');
+    expect(northRidge.versions[0]).toMatchObject({ source: 'column', memberIds: ['N1', 'N2', 'N3'], approvedAt: null });
+    const again = await members.analyst.agent
+      .post(`/api/labs/${labId}/groups/from-column`)
+      .send({ datasetVersionId: otherReferenceVersionId })
+      .expect(201);
+    const versions = again.body.groups.find((g: { name: string }) => g.name === 'North ridge').versions;
+    expect(versions).toHaveLength(northRidge.versions.length);
+    await members.student.agent
+      .post(`/api/labs/${labId}/groups/from-column`)
+      .send({ datasetVersionId: otherReferenceVersionId })
+      .expect(403);
   });
 
   it('answers invalid settings with the field to fix', async () => {
@@ -224,7 +292,6 @@ describe('studies and their step cards (HTTP, PostgreSQL)', () => {
   it('copies a study with new data: settings carried over, nothing computed', async () => {
     const source = await studyWithGroups(members.analyst, [north.versions[0].id, south.versions[0].id]);
     await markRun(source.id, 'check', 'current');
-    const unknownsVersionId = randomUUID();
 
     const same = await members.student.agent
       .post(`${base()}/${source.id}/copy`)
@@ -243,7 +310,7 @@ describe('studies and their step cards (HTTP, PostgreSQL)', () => {
 
     const other = await members.analyst.agent
       .post(`${base()}/${source.id}/copy`)
-      .send({ name: 'New reference', data: { referenceVersionId: randomUUID(), unknownsVersionId } })
+      .send({ name: 'New reference', data: { referenceVersionId: otherReferenceVersionId, unknownsVersionId } })
       .expect(201);
     expect(statuses(other.body)).toMatchObject({ prepare: 'current', groups: 'not_run' });
     expect(other.body.steps[2].parameters).toBeNull();
