@@ -13,6 +13,9 @@ import { StudyListPage } from '../features/studies/components/StudyListPage';
 import { SignUpPage } from '../features/auth/components/SignUpPage';
 import { MembersPage } from '../features/members/components/MembersPage';
 import { OutboxPage } from '../features/outbox/components/OutboxPage';
+import { DatasetImportPage } from '../features/datasets/components/DatasetImportPage';
+import { DatasetListPage } from '../features/datasets/components/DatasetListPage';
+import { DatasetPage } from '../features/datasets/components/DatasetPage';
 
 export const routes: RouteObject[] = [
   { path: '/sign-in', element: <SignInPage /> },
@@ -31,6 +34,9 @@ export const routes: RouteObject[] = [
       { index: true, element: <StudyListPage /> },
       { path: '/labs/:labId', element: <StudyListPage /> },
       { path: '/labs/:labId/studies/:studyId', element: <NotebookPage /> },
+      { path: '/labs/:labId/datasets', element: <DatasetListPage /> },
+      { path: '/labs/:labId/datasets/new', element: <DatasetImportPage /> },
+      { path: '/labs/:labId/datasets/:datasetId', element: <DatasetPage /> },
       { path: '/labs/:labId/members', element: <MembersPage /> },
       { path: '/labs/:labId/audit', element: <AuditLogPage /> },
       { path: '/labs/:labId/outbox', element: <OutboxPage /> },

@@ -51,7 +51,10 @@ function useLabNavigation(): { to: string; label: string }[] {
   const membership = memberships.find((m) => m.labId === labId) ?? memberships[0];
   if (!membership) return [];
   const base = `/labs/${membership.labId}`;
-  const items = [{ to: `${base}/members`, label: 'Members' }];
+  const items = [
+    { to: `${base}/datasets`, label: 'Datasets' },
+    { to: `${base}/members`, label: 'Members' },
+  ];
   if (membership.role === 'pi') {
     items.push({ to: `${base}/audit`, label: 'Audit log' }, { to: `${base}/outbox`, label: 'Outbox' });
   }
