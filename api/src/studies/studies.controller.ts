@@ -90,9 +90,10 @@ export class StudiesController {
     @Param('labId') labId: string,
     @Param('studyId', uuid) studyId: string,
     @Body() body: CopyStudyDto,
+    @CurrentMembership() membership: LabMembership,
     @CurrentUser() user: AuthUser,
   ): Promise<Study> {
-    return this.studies.copy(labId, studyId, body, user);
+    return this.studies.copy(labId, studyId, body, membership, user);
   }
 
   @Roles('pi', 'analyst', 'student')

@@ -6,12 +6,14 @@ import {
   stepKeys,
   type CopyStudy,
   type CreateStudy,
+  type StepParameters,
   type Study,
   type StudyList,
   type UpdateStudy,
 } from '@provenote/shared';
 import { AuditService } from '../audit/audit.service';
 import type { AuthUser, LabMembership } from '../auth/auth.types';
+import { GroupsService } from '../groups/groups.service';
 import { planCopy } from './copy-plan';
 import { assertDataStep } from './data-step-check';
 import { reconcileRuns } from './reconcile-runs';
@@ -27,6 +29,7 @@ export class StudiesService {
   constructor(
     @InjectDataSource() private readonly dataSource: DataSource,
     private readonly audit: AuditService,
+    private readonly groups: GroupsService,
   ) {}
 
   async list(labId: string): Promise<StudyList> {
@@ -85,7 +88,13 @@ export class StudiesService {
   }
 
   /** "Copy with new data" (see planCopy); the copy belongs to whoever made it. */
-  async copy(labId: string, studyId: string, input: CopyStudy, user: AuthUser): Promise<Study> {
+  async copy(
+    labId: string,
+    studyId: string,
+    input: CopyStudy,
+    membership: LabMembership,
+    user: AuthUser,
+  ): Promise<Study> {
     const id = await this.dataSource.transaction(async (manager) => {
       const { study: source, steps } = await this.load(labId, studyId, manager);
       await assertDataStep(manager, labId, input.data);
@@ -97,7 +106,16 @@ export class StudiesService {
         source.id,
       );
       const repository = manager.getRepository(StudyStepEntity);
-      for (const step of planCopy(steps, input.data)) {
+      const plan = planCopy(steps, input.data);
+      const groups = plan.find((step) => step.key === 'groups')?.parameters as StepParameters['groups'] | null;
+      // A student's copy may keep only approved groups, as a student's own study may.
+      if (groups && membership.role === 'student') {
+        await this.groups.assertUsable(manager, labId, groups.groupVersionIds, {
+          approvedOnly: true,
+          datasetVersionId: input.data.referenceVersionId,
+        });
+      }
+      for (const step of plan) {
         await repository.update(
           { studyId: copy.id, key: step.key },
           { parameters: step.parameters, status: step.status, updatedById: user.id },

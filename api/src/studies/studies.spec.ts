@@ -290,13 +290,22 @@ describe('studies and their step cards (HTTP, PostgreSQL)', () => {
   });
 
   it('copies a study with new data: settings carried over, nothing computed', async () => {
-    const source = await studyWithGroups(members.analyst, [north.versions[0].id, south.versions[0].id]);
+    const upper = await createGroup('Upper terrace', ['N1', 'N2']);
+    const lower = await createGroup('Lower terrace', ['S1', 'S2']);
+    const source = await studyWithGroups(members.analyst, [upper.versions[0].id, lower.versions[0].id]);
     await markRun(source.id, 'check', 'current');
+    const copyAsStudent = () =>
+      members.student.agent
+        .post(`${base()}/${source.id}/copy`)
+        .send({ name: 'Core 3', data: { referenceVersionId, unknownsVersionId } });
+    expect((await copyAsStudent().expect(403)).body.message).toMatch(/not approved yet/);
+    for (const group of [upper, lower]) {
+      await members.analyst.agent
+        .post(`/api/labs/${labId}/groups/${group.id}/versions/${group.versions[0].id}/approve`)
+        .expect(201);
+    }
 
-    const same = await members.student.agent
-      .post(`${base()}/${source.id}/copy`)
-      .send({ name: 'Core 3', data: { referenceVersionId, unknownsVersionId } })
-      .expect(201);
+    const same = await copyAsStudent().expect(201);
     expect(same.body).toMatchObject({ copiedFromId: source.id, owner: { id: members.student.user.id } });
     expect(statuses(same.body)).toMatchObject({
       data: 'current',
