@@ -3,6 +3,7 @@ import { TypeOrmModule } from '@nestjs/typeorm';
 import type { AppConfig } from '../config/config';
 import { AppConfigModule } from '../config/config.module';
 import { dataSourceOptions } from '../database/typeorm-options';
+import { MailModule } from '../mail/mail.module';
 import { RedisModule } from '../redis/redis.module';
 import { RunsCoreModule } from '../runs/runs-core.module';
 import { QueueModule } from './queue.module';
@@ -17,6 +18,7 @@ export class WorkerModule {
         AppConfigModule.forRoot(config),
         TypeOrmModule.forRoot({ ...dataSourceOptions(config.DATABASE_URL), autoLoadEntities: true }),
         RedisModule,
+        MailModule,
         QueueModule,
         RunsCoreModule.forRoot({ workerProcess: true }),
       ],

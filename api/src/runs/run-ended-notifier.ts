@@ -1,4 +1,4 @@
-import { Inject, Injectable, Logger, Optional } from '@nestjs/common';
+import { Inject, Injectable } from '@nestjs/common';
 import { InjectDataSource } from '@nestjs/typeorm';
 import { DataSource } from 'typeorm';
 import type { RunEvent } from '@provenote/shared';
@@ -7,7 +7,7 @@ import type { AppConfig } from '../config/config';
 
 /** Whatever sends mail for the product; the runs module asks for it under RUN_MAILER. */
 export interface RunMailer {
-  send(message: { to: string; subject: string; text: string }): Promise<unknown>;
+  send(message: { to: string; subject: string; text: string; labId?: string }): Promise<unknown>;
 }
 export const RUN_MAILER = Symbol('RUN_MAILER');
 
@@ -24,31 +24,23 @@ const KIND_LABELS: Record<string, string> = {
 /** Tells the person who started a run that it ended, with a link to it. */
 @Injectable()
 export class RunEndedNotifier {
-  private readonly logger = new Logger('RunEnded');
-
   constructor(
     @InjectDataSource() private readonly dataSource: DataSource,
     @Inject(APP_CONFIG) private readonly config: AppConfig,
-    @Optional() @Inject(RUN_MAILER) private readonly mailer?: RunMailer,
+    @Inject(RUN_MAILER) private readonly mailer: RunMailer,
   ) {}
 
   async runEnded(event: RunEvent): Promise<void> {
     const rows = (await this.dataSource.query(
-      `SELECT r.kind, r.lab_id, u.email, u.display_name FROM runs r JOIN users u ON u.id = r.created_by WHERE r.id = $1`,
+      `SELECT r.kind, r.lab_id, r.study_id, u.email FROM runs r JOIN users u ON u.id = r.created_by WHERE r.id = $1`,
       [event.runId],
-    )) as { kind: string; lab_id: string; email: string; display_name: string }[];
+    )) as { kind: string; lab_id: string; study_id: string | null; email: string }[];
     const row = rows[0];
     if (!row) return;
-    const message = composeRunEndedMail(
-      event,
-      row.kind,
-      `${this.config.PUBLIC_URL}/labs/${row.lab_id}/runs/${event.runId}`,
-    );
-    if (!this.mailer) {
-      this.logger.log(`no mail service configured; would tell ${row.email}: ${message.subject}`);
-      return;
-    }
-    await this.mailer.send({ to: row.email, ...message });
+    // The run is shown on its study's page; a run without a study is listed on the lab's page.
+    const path = row.study_id ? `/labs/${row.lab_id}/studies/${row.study_id}` : `/labs/${row.lab_id}`;
+    const message = composeRunEndedMail(event, row.kind, `${this.config.PUBLIC_URL}${path}`);
+    await this.mailer.send({ to: row.email, labId: row.lab_id, ...message });
   }
 }
 

@@ -6,7 +6,8 @@ import { PgRunStore } from './pg-run-store';
 import { RunAssignmentEntity } from './run-assignment.entity';
 import { RunCheckMemberEntity } from './run-check-member.entity';
 import { RunCheckPairEntity } from './run-check-pair.entity';
-import { RunEndedNotifier } from './run-ended-notifier';
+import { MailService } from '../mail/mail.service';
+import { RUN_MAILER, RunEndedNotifier } from './run-ended-notifier';
 import { RunGroupEntity } from './run-group.entity';
 import { RunInputEntity } from './run-input.entity';
 import { RunWorkerHost, RUN_WORKERS_ENABLED } from './run-worker-host';
@@ -34,6 +35,8 @@ export class RunsCoreModule {
       providers: [
         PgRunStore,
         RunEndedNotifier,
+        // MailModule is global in the api and imported by the worker process.
+        { provide: RUN_MAILER, useExisting: MailService },
         RunWorkerHost,
         {
           provide: RUN_WORKERS_ENABLED,

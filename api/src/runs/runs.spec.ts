@@ -1,6 +1,6 @@
 import { DataSource } from 'typeorm';
 import { applyTransform, fitGroup, squaredDistance, type RunEvent } from '@provenote/shared';
-import { createLabWithMembers, type SignedInMember } from '../../test/auth-helpers';
+import { createLabWithMembers, mailTo, type SignedInMember } from '../../test/auth-helpers';
 import { classifyRequest, FIXTURE_ELEMENTS } from '../../test/run-fixtures';
 import { waitForRun } from '../../test/run-waits';
 import { createTestApp, type TestApp } from '../../test/test-app';
@@ -42,6 +42,11 @@ describe('runs over HTTP with embedded workers (real PostgreSQL and Redis)', () 
     const progress = events.filter((e) => e.status === 'running').map((e) => e.progress);
     expect(progress.length).toBeGreaterThan(0);
     expect(progress).toEqual([...progress].sort((a, b) => a - b));
+
+    // The person who started the run is told, in the lab's outbox, with a link back to the lab.
+    const mail = await mailTo(testApp, members.student.user.email, /assignment run has finished/);
+    expect(mail.text).toContain(`${testApp.config.PUBLIC_URL}/labs/${labId}`);
+    expect(mail.text).toContain('not proof of its origin');
 
     const page = await members.guest.agent
       .get(`${runs()}/${runId}/assignments?sort=probability&order=desc`)
