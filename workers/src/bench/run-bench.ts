@@ -3,10 +3,12 @@ import { join } from 'node:path';
 import type { BenchFigure, BenchSection } from './bench-section';
 import { bundleBench } from './bundle.bench';
 import { engineBench } from './engine.bench';
+import { importBench } from './import.bench';
 import { mergeResults, type BenchResults } from './results-file';
+import { stopBenchStack } from './stack/bench-stack';
 
 /** Sections run in this order; further sections (import, API, bundle) are appended here. */
-export const SECTIONS: readonly BenchSection[] = [engineBench, bundleBench];
+export const SECTIONS: readonly BenchSection[] = [engineBench, bundleBench, importBench];
 
 export function formatTable(figures: readonly BenchFigure[]): string {
   const width = Math.max(...figures.map((f) => f.label.length));
@@ -36,9 +38,14 @@ export async function runBench(
   // Taken before measuring, so the load average describes the machine the figures were measured on.
   const machine = { ...machineInfo(), 'machine.measured_at': new Date().toISOString() };
   const figures: BenchFigure[] = [];
-  for (const section of sections) {
-    log(`— ${section.name} —`);
-    figures.push(...(await section.run(log)));
+  try {
+    for (const section of sections) {
+      log(`— ${section.name} —`);
+      figures.push(...(await section.run(log)));
+    }
+  } finally {
+    // PostgreSQL, Redis and the API that the import, end-to-end, API and web sections share.
+    await stopBenchStack();
   }
   log('');
   log(formatTable(figures));
