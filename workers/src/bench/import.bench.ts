@@ -2,6 +2,7 @@ import { loadavg } from 'node:os';
 import type { BenchFigure, BenchSection } from './bench-section';
 import { benchStack } from './stack/bench-stack';
 import { importDataset } from './stack/import-dataset';
+import { round2 } from './stack/figures';
 import { BENCH_ELEMENTS, unknownsCsv } from './stack/synthetic-csv';
 
 const ROWS = 100_000;
@@ -43,5 +44,3 @@ export const importBench: BenchSection = {
     ] satisfies BenchFigure[];
   },
 };
-
-export const round2 = (x: number) => Math.round(x * 100) / 100;

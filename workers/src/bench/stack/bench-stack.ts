@@ -124,8 +124,18 @@ class RunningStack implements BenchStack {
   }
 }
 
+/** BENCH_CPU_PROFILE=1 writes a V8 CPU profile per child process into .data/bench/profiles (open in DevTools). */
+function profileFlags(): string[] {
+  if (!process.env.BENCH_CPU_PROFILE) return [];
+  return ['--cpu-prof', `--cpu-prof-dir=${join(REPO_ROOT, '.data', 'bench', 'profiles')}`];
+}
+
 function startChild(name: string, script: string, env: NodeJS.ProcessEnv): ChildProcess {
-  const child = spawn(process.execPath, [script], { cwd: REPO_ROOT, env, stdio: ['ignore', 'ignore', 'pipe'] });
+  const child = spawn(process.execPath, [...profileFlags(), script], {
+    cwd: REPO_ROOT,
+    env,
+    stdio: ['ignore', 'ignore', 'pipe'],
+  });
   // Errors only: the bench's own table stays readable, and a crash still says why.
   child.stderr?.on('data', (chunk: Buffer) => process.stderr.write(`[${name}] ${chunk.toString('utf8')}`));
   return child;
