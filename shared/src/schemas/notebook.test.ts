@@ -100,6 +100,12 @@ describe('stepBlocker', () => {
     expect(stepBlocker(steps, 'data')).toBeNull();
   });
 
+  it('asks to confirm a stale settings card, and to run a stale computed one', () => {
+    expect(
+      stepBlocker(notebook(['current', 'current', 'stale', 'stale', 'not_run', 'not_run', 'not_run']), 'check'),
+    ).toBe('"Reference groups" is stale; check its settings and save them again first.');
+  });
+
   it('names the first card above that is not current, and why', () => {
     expect(
       stepBlocker(notebook(['current', 'not_run', 'not_run', 'not_run', 'not_run', 'not_run', 'not_run']), 'assign'),

@@ -94,7 +94,11 @@ export function stepBlocker(steps: readonly StepState[], key: StepKey): string |
   const title = stepLabels[pending.key].title;
   if (pending.status === 'running') return `Wait for "${title}" to finish.`;
   if (pending.status === 'failed') return `"${title}" failed; fix it and run it again first.`;
-  if (pending.status === 'stale') return `"${title}" is stale; run it again first.`;
+  if (pending.status === 'stale') {
+    return isComputedStep(pending.key)
+      ? `"${title}" is stale; run it again first.`
+      : `"${title}" is stale; check its settings and save them again first.`;
+  }
   return `Complete "${title}" first.`;
 }
 

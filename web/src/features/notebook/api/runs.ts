@@ -11,7 +11,7 @@ export function useStartStepRun(labId: string, studyId: string) {
       apiRequest(`/labs/${labId}/studies/${studyId}/steps/${key}/run`, studySchema, { method: 'POST', body: {} }),
     onSuccess: (study) => {
       queryClient.setQueryData(studyQuery(labId, studyId).queryKey, study);
-      void queryClient.invalidateQueries({ queryKey: studyListQuery(labId).queryKey });
+      void queryClient.invalidateQueries({ queryKey: studyListQuery(labId).queryKey, exact: true });
     },
   });
 }

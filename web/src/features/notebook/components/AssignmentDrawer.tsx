@@ -1,8 +1,12 @@
 import { Drawer, Stack, Table, Text, Title } from '@mantine/core';
 import type { AssignmentRow, AssignmentsPage } from '@provenote/shared/schemas';
 import { EvidenceCaution } from './EvidenceCaution';
+import { OverrideForm } from './OverrideForm';
 
 interface Props {
+  labId: string;
+  studyId: string;
+  canOverride: boolean;
   row: AssignmentRow | null;
   groups: AssignmentsPage['groups'];
   variables: string[];
@@ -12,7 +16,7 @@ interface Props {
 const fmt = (p: number) => (p < 0.001 ? p.toExponential(2) : p.toFixed(3));
 
 /** One unknown in detail: its probability for every group and which elements drive its distance. */
-export function AssignmentDrawer({ row, groups, variables, onClose }: Props) {
+export function AssignmentDrawer({ labId, studyId, canOverride, row, groups, variables, onClose }: Props) {
   return (
     <Drawer
       opened={row !== null}
@@ -28,6 +32,14 @@ export function AssignmentDrawer({ row, groups, variables, onClose }: Props) {
             {row.runnerUp && `, runner-up ${row.runnerUp} (${fmt(row.runnerUpProbability ?? 0)})`}.
           </Text>
           <EvidenceCaution />
+          <OverrideForm
+            key={row.sampleId}
+            labId={labId}
+            studyId={studyId}
+            row={row}
+            groups={groups.map((g) => g.name)}
+            canOverride={canOverride}
+          />
           <Title order={4}>Every group</Title>
           <Table aria-label="Distance and probabilities per group">
             <Table.Thead>

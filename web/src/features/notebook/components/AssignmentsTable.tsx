@@ -12,7 +12,14 @@ const formatP = (p: number | null) => (p === null ? '—' : p < 0.001 ? p.toExpo
 const sortable = new Set<string>(['sampleId', 'verdict', 'group', 'probability', 'runnerUpProbability']);
 
 /** The unknowns of one assign run: server-side paging, sorting, filtering and search (100,000 rows and more). */
-export function AssignmentsTable({ labId, runId }: { labId: string; runId: string }) {
+interface Props {
+  labId: string;
+  studyId: string;
+  runId: string;
+  canOverride: boolean;
+}
+
+export function AssignmentsTable({ labId, studyId, runId, canOverride }: Props) {
   const [page, setPage] = useState(1);
   const [verdict, setVerdict] = useState<string | null>(null);
   const [group, setGroup] = useState<string | null>(null);
@@ -115,7 +122,15 @@ export function AssignmentsTable({ labId, runId }: { labId: string; runId: strin
         ]}
       />
       {data && (
-        <AssignmentDrawer row={open} groups={data.groups} variables={data.variables} onClose={() => setOpen(null)} />
+        <AssignmentDrawer
+          labId={labId}
+          studyId={studyId}
+          canOverride={canOverride}
+          row={open}
+          groups={data.groups}
+          variables={data.variables}
+          onClose={() => setOpen(null)}
+        />
       )}
     </>
   );

@@ -78,9 +78,10 @@ export function NotebookCards(props: Props) {
             {step.key === 'check' && (
               <CheckCard {...card} {...runProps} mayExclude={analyst} memberOptions={memberOptions} />
             )}
-            {step.key === 'assign' && <AssignCard {...card} {...runProps} />}
+            {step.key === 'assign' && <AssignCard {...card} {...runProps} canOverride={analyst && !locked} />}
             {step.key === 'review' && (
               <ReviewCard
+                labId={labId}
                 study={study}
                 isPi={role === 'pi'}
                 blocker={blockerOf('export')}

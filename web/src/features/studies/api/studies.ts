@@ -33,7 +33,7 @@ export const useStudy = (labId: string, studyId: string) =>
 
 function useInvalidateStudies(labId: string) {
   const queryClient = useQueryClient();
-  return () => queryClient.invalidateQueries({ queryKey: studyListQuery(labId).queryKey });
+  return () => queryClient.invalidateQueries({ queryKey: studyListQuery(labId).queryKey, exact: true });
 }
 
 export function useCreateStudy(labId: string) {

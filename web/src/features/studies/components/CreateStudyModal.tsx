@@ -40,7 +40,7 @@ export function CreateStudyModal({ labId, opened, onClose, onCreated }: Props) {
             data-autofocus
             {...form.getInputProps('name')}
           />
-          <Textarea label="Description" autosize minRows={3} {...form.getInputProps('description')} />
+          <Textarea label="Description" rows={3} {...form.getInputProps('description')} />
           <Group justify="flex-end">
             <Button variant="default" onClick={onClose}>
               Cancel

@@ -6,12 +6,26 @@ import { EvidenceCaution } from '../EvidenceCaution';
 import type { CardProps } from './card-props';
 
 interface Props extends CardProps {
+  /** Analysts and PIs on a study that is not signed off. */
+  canOverride: boolean;
   onRun: () => void;
   running: boolean;
   runBlocked: boolean;
 }
 
-export function AssignCard({ labId, step, readOnly, onSave, saving, errors, onRun, running, runBlocked }: Props) {
+export function AssignCard({
+  labId,
+  study,
+  step,
+  readOnly,
+  onSave,
+  saving,
+  errors,
+  canOverride,
+  onRun,
+  running,
+  runBlocked,
+}: Props) {
   const saved = step.parameters as StepParameters['assign'] | null;
   const [values, setValues] = useState<StepParameters['assign']>(saved ?? { probability: 'hotelling', alpha: 0.05 });
   const changed = saved?.probability !== values.probability || saved?.alpha !== values.alpha;
@@ -62,7 +76,12 @@ export function AssignCard({ labId, step, readOnly, onSave, saving, errors, onRu
       {step.runId && (step.status === 'current' || step.status === 'stale') && (
         <>
           <EvidenceCaution />
-          <AssignmentsTable labId={labId} runId={step.runId} />
+          <AssignmentsTable
+            labId={labId}
+            studyId={study.id}
+            runId={step.runId}
+            canOverride={canOverride && step.status === 'current'}
+          />
         </>
       )}
       {step.status === 'not_run' && (

@@ -1,6 +1,7 @@
 import { ActionIcon, Button, Group, Select, Stack, Table, Text, Textarea } from '@mantine/core';
 import { useState } from 'react';
 import type { MemberExclusion, StepParameters } from '@provenote/shared/schemas';
+import { CheckResults } from '../CheckResults';
 import type { CardProps } from './card-props';
 
 interface Props extends CardProps {
@@ -14,6 +15,8 @@ interface Props extends CardProps {
 
 /** The group check: run leave-one-out on the queue, and exclude members with a written reason. */
 export function CheckCard({
+  labId,
+  study,
   step,
   readOnly,
   onSave,
@@ -42,11 +45,8 @@ export function CheckCard({
           {!mayExclude && <Text size="sm">Analysts and PIs run the group check.</Text>}
         </Group>
       )}
-      {step.status === 'current' && (
-        <Text size="sm">
-          The leave-one-out results are in run {step.runId}; open the run to read each member's verdict and the pairwise
-          separation.
-        </Text>
+      {step.runId && (step.status === 'current' || step.status === 'stale') && (
+        <CheckResults labId={labId} studyId={study.id} runId={step.runId} />
       )}
       <Text fw={500} size="sm">
         Excluded members ({saved.length})
@@ -103,8 +103,8 @@ export function CheckCard({
             value={reason}
             onChange={(e) => setReason(e.currentTarget.value)}
             error={errors['exclusions']}
-            autosize
-            minRows={2}
+            resize="vertical"
+            rows={2}
           />
           <Group>
             <Button

@@ -1,0 +1,176 @@
+import { Alert, Group, Select, Stack, Table, Text, Title } from '@mantine/core';
+import { DataTable } from 'mantine-datatable';
+import 'mantine-datatable/styles.css';
+import { useState } from 'react';
+import {
+  memberOutcomeLabels,
+  memberOutcomes,
+  type CheckResults as Results,
+  type MemberOutcome,
+} from '@provenote/shared/schemas';
+import { errorMessage } from '../../studies/api/http';
+import { useCheckResults } from '../api/check-results';
+
+const fmtP = (p: number) => (p < 0.001 ? p.toExponential(2) : p.toFixed(3));
+
+/** Leave-one-out per member, the confusion table, the separation of each pair and the per-element screening. */
+export function CheckResults({ labId, studyId, runId }: { labId: string; studyId: string; runId: string }) {
+  const [page, setPage] = useState(1);
+  const [outcome, setOutcome] = useState<MemberOutcome | null>(null);
+  const [group, setGroup] = useState<string | null>(null);
+  const results = useCheckResults(labId, studyId, runId, {
+    page,
+    outcome: outcome ?? undefined,
+    group: group ?? undefined,
+  });
+  if (results.isError) return <Alert color="red">Could not load the group check: {errorMessage(results.error)}</Alert>;
+  const data = results.data;
+  if (!data) return <Text size="sm">Loading the group check…</Text>;
+  return (
+    <Stack gap="md">
+      <Text size="sm">
+        {data.returnedToOwnGroup} of {data.memberCount} members return to their own group when left out of it.
+      </Text>
+      <Confusion data={data} />
+      <Title order={4}>Members left out one at a time</Title>
+      <Group grow>
+        <Select
+          label="Outcome"
+          data={memberOutcomes.map((o) => ({ value: o, label: memberOutcomeLabels[o] }))}
+          value={outcome}
+          onChange={(o) => {
+            setPage(1);
+            setOutcome(o as MemberOutcome | null);
+          }}
+          clearable
+        />
+        <Select
+          label="Group"
+          data={data.groups.map((g) => g.name)}
+          value={group}
+          onChange={(g) => {
+            setPage(1);
+            setGroup(g);
+          }}
+          clearable
+        />
+      </Group>
+      <DataTable
+        aria-label="Leave-one-out results per member"
+        withTableBorder
+        striped
+        minHeight={150}
+        idAccessor={(r) => `${r.group}/${r.sampleId}`}
+        records={data.members.rows}
+        fetching={results.isFetching}
+        totalRecords={data.members.total}
+        recordsPerPage={data.members.pageSize}
+        page={page}
+        onPageChange={setPage}
+        noRecordsText="No members match"
+        columns={[
+          { accessor: 'sampleId', title: 'Sample' },
+          { accessor: 'group', title: 'Group' },
+          { accessor: 'outcome', title: 'Left out', render: (r) => memberOutcomeLabels[r.outcome] },
+          { accessor: 'bestGroup', title: 'Best group' },
+          {
+            accessor: 'd2LeaveOneOut',
+            title: 'D² left out',
+            textAlign: 'right',
+            render: (r) => r.d2LeaveOneOut.toFixed(2),
+          },
+          {
+            accessor: 'pHotellingLeaveOneOut',
+            title: 'p (Hotelling)',
+            textAlign: 'right',
+            render: (r) => fmtP(r.pHotellingLeaveOneOut),
+          },
+          {
+            accessor: 'pChi2LeaveOneOut',
+            title: 'p (χ²)',
+            textAlign: 'right',
+            render: (r) => fmtP(r.pChi2LeaveOneOut),
+          },
+        ]}
+      />
+      <Title order={4}>Separation of the groups (two-sample Hotelling T²)</Title>
+      <Table aria-label="Pairwise separation">
+        <Table.Thead>
+          <Table.Tr>
+            <Table.Th>Groups</Table.Th>
+            <Table.Th ta="right">T²</Table.Th>
+            <Table.Th ta="right">F (df)</Table.Th>
+            <Table.Th ta="right">p</Table.Th>
+          </Table.Tr>
+        </Table.Thead>
+        <Table.Tbody>
+          {data.pairs.map((pair) => (
+            <Table.Tr key={`${pair.groupA}/${pair.groupB}`}>
+              <Table.Td>
+                {pair.groupA} – {pair.groupB}
+              </Table.Td>
+              <Table.Td ta="right">{pair.t2.toFixed(2)}</Table.Td>
+              <Table.Td ta="right">
+                {pair.f.toFixed(2)} ({pair.df1}, {pair.df2})
+              </Table.Td>
+              <Table.Td ta="right">{fmtP(pair.p)}</Table.Td>
+            </Table.Tr>
+          ))}
+        </Table.Tbody>
+      </Table>
+      <Title order={4}>Screening per coordinate (Kruskal–Wallis H)</Title>
+      <Text size="xs" c="dimmed">
+        A large H (small p) means the groups differ in that coordinate: it helps tell them apart.
+      </Text>
+      <Table aria-label="Kruskal–Wallis screening">
+        <Table.Thead>
+          <Table.Tr>
+            <Table.Th>Coordinate</Table.Th>
+            <Table.Th ta="right">H</Table.Th>
+            <Table.Th ta="right">p</Table.Th>
+          </Table.Tr>
+        </Table.Thead>
+        <Table.Tbody>
+          {data.kruskalWallis.map((k) => (
+            <Table.Tr key={k.variable}>
+              <Table.Td>{k.variable}</Table.Td>
+              <Table.Td ta="right">{k.h.toFixed(2)}</Table.Td>
+              <Table.Td ta="right">{fmtP(k.p)}</Table.Td>
+            </Table.Tr>
+          ))}
+        </Table.Tbody>
+      </Table>
+    </Stack>
+  );
+}
+
+function Confusion({ data }: { data: Results }) {
+  const names = data.groups.map((g) => g.name);
+  const columns = [...names, 'ambiguous', 'unassigned'];
+  return (
+    <Table aria-label="Where members go when left out" withColumnBorders>
+      <Table.Thead>
+        <Table.Tr>
+          <Table.Th>Own group ↓ / assigned to →</Table.Th>
+          {columns.map((c) => (
+            <Table.Th key={c} ta="right">
+              {c}
+            </Table.Th>
+          ))}
+        </Table.Tr>
+      </Table.Thead>
+      <Table.Tbody>
+        {names.map((own) => (
+          <Table.Tr key={own}>
+            <Table.Td>{own}</Table.Td>
+            {columns.map((c) => (
+              <Table.Td key={c} ta="right" fw={c === own ? 700 : undefined}>
+                {data.confusion[own]?.[c] ?? 0}
+              </Table.Td>
+            ))}
+          </Table.Tr>
+        ))}
+      </Table.Tbody>
+    </Table>
+  );
+}
