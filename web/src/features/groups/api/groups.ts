@@ -1,6 +1,6 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { referenceGroupListSchema } from '@provenote/shared/schemas';
-import { apiRequest } from '../../studies/api/http';
+import { apiRequest } from '../../../app/api-client';
 
 export const groupListQuery = (labId: string) =>
   queryOptions({

@@ -1,6 +1,6 @@
 import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
 import { assignmentsPageSchema, type AssignmentsQuery } from '@provenote/shared/schemas';
-import { apiRequest } from '../../studies/api/http';
+import { apiRequest } from '../../../app/api-client';
 
 export type AssignmentsFilter = Partial<AssignmentsQuery> & { page: number };
 

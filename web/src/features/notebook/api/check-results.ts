@@ -1,6 +1,6 @@
 import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
 import { checkResultsSchema, type CheckResultsQuery } from '@provenote/shared/schemas';
-import { apiRequest } from '../../studies/api/http';
+import { apiRequest } from '../../../app/api-client';
 
 export type CheckFilter = Partial<CheckResultsQuery> & { page: number };
 

@@ -1,6 +1,6 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { datasetListSchema } from '@provenote/shared/schemas';
-import { apiRequest } from '../../studies/api/http';
+import { apiRequest } from '../../../app/api-client';
 
 /** The lab's datasets with their versions, for the Data card's pickers. */
 export const datasetListQuery = (labId: string) =>

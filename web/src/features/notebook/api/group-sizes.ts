@@ -1,6 +1,6 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { groupSizesSchema } from '@provenote/shared/schemas';
-import { apiRequest } from '../../studies/api/http';
+import { apiRequest } from '../../../app/api-client';
 
 /** n against p for the study's chosen groups, with the engine's warnings and false-rejection rate. */
 export const groupSizesQuery = (labId: string, studyId: string, updatedAt: string) =>

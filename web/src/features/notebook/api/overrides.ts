@@ -1,6 +1,6 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { overrideListSchema, type CreateOverride } from '@provenote/shared/schemas';
-import { apiRequest } from '../../studies/api/http';
+import { apiRequest } from '../../../app/api-client';
 import { studyQuery } from '../../studies/api/studies';
 
 export const overridesQuery = (labId: string, studyId: string) =>

@@ -1,6 +1,6 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { studySchema, type StepKey } from '@provenote/shared/schemas';
-import { apiRequest } from '../../studies/api/http';
+import { apiRequest } from '../../../app/api-client';
 import { studyListQuery, studyQuery } from '../../studies/api/studies';
 
 /** Starts a card's run on the queue (its inputs are gathered by the API from the cards above). */

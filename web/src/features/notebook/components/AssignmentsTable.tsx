@@ -4,7 +4,7 @@ import { DataTable, type DataTableSortStatus } from 'mantine-datatable';
 import 'mantine-datatable/styles.css';
 import { useState } from 'react';
 import { assignmentVerdicts, type AssignmentRow, type AssignmentsQuery } from '@provenote/shared/schemas';
-import { errorMessage } from '../../studies/api/http';
+import { errorMessage } from '../../../app/api-client';
 import { useAssignments } from '../api/assignments';
 import { AssignmentDrawer } from './AssignmentDrawer';
 

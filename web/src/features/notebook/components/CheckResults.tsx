@@ -8,7 +8,7 @@ import {
   type CheckResults as Results,
   type MemberOutcome,
 } from '@provenote/shared/schemas';
-import { errorMessage } from '../../studies/api/http';
+import { errorMessage } from '../../../app/api-client';
 import { useCheckResults } from '../api/check-results';
 
 const fmtP = (p: number) => (p < 0.001 ? p.toExponential(2) : p.toFixed(3));

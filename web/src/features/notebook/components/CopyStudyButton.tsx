@@ -3,7 +3,7 @@ import { useDisclosure } from '@mantine/hooks';
 import { useState } from 'react';
 import { useNavigate } from 'react-router-dom';
 import type { StepParameters, Study } from '@provenote/shared/schemas';
-import { errorMessage } from '../../studies/api/http';
+import { errorMessage } from '../../../app/api-client';
 import { useCopyStudy } from '../../studies/api/studies';
 import { useDatasetList } from '../api/datasets';
 import { stepParameters } from './cards/card-props';

@@ -28,6 +28,7 @@ function answers(
 ) {
   return fakeApi({
     'GET /api/me': () => ({ body: me(role) }),
+    'GET /api/auth/csrf': () => ({ body: { csrfToken: 'test-token' } }),
     [`GET ${base}/studies/${STUDY}`]: () => ({ body: current }),
     [`GET ${base}/datasets`]: () => ({ body: [referenceDataset] }),
     [`GET ${base}/groups`]: () => ({ body: { groups: [] } }),

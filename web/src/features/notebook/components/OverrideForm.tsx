@@ -6,7 +6,7 @@ import {
   type AssignmentRow,
   type AssignmentVerdict,
 } from '@provenote/shared/schemas';
-import { errorMessage } from '../../studies/api/http';
+import { errorMessage } from '../../../app/api-client';
 import { useCreateOverride, useOverrides } from '../api/overrides';
 
 interface Props {

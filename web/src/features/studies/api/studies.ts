@@ -8,7 +8,7 @@ import {
   type SignOff,
   type StepKey,
 } from '@provenote/shared/schemas';
-import { apiRequest } from './http';
+import { apiRequest } from '../../../app/api-client';
 
 export const studyListQuery = (labId: string) =>
   queryOptions({

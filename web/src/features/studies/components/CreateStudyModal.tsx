@@ -1,7 +1,7 @@
 import { Button, Group, Modal, Stack, Textarea, TextInput } from '@mantine/core';
 import { useForm } from '@mantine/form';
 import { createStudySchema, type Study } from '@provenote/shared/schemas';
-import { errorMessage } from '../api/http';
+import { errorMessage } from '../../../app/api-client';
 import { useCreateStudy } from '../api/studies';
 
 interface Props {

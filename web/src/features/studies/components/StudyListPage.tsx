@@ -1,8 +1,8 @@
 import { Alert, Anchor, Button, Group, Loader, Stack, Table, Text, Title } from '@mantine/core';
 import { useDisclosure } from '@mantine/hooks';
 import { Link, useNavigate, useParams } from 'react-router-dom';
-import { errorMessage } from '../api/http';
-import { useMe } from '../api/me';
+import { errorMessage } from '../../../app/api-client';
+import { useMe } from '../../../app/session';
 import { useStudyList } from '../api/studies';
 import { CreateStudyModal } from './CreateStudyModal';
 import { StudyStatusBadge } from './StudyStatusBadge';
