@@ -8,6 +8,7 @@ import { ForgotPasswordPage } from '../features/auth/components/ForgotPasswordPa
 import { RequireSession } from '../features/auth/components/RequireSession';
 import { ResetPasswordPage } from '../features/auth/components/ResetPasswordPage';
 import { SignInPage } from '../features/auth/components/SignInPage';
+import { GroupsPage } from '../features/groups/components/GroupsPage';
 import { NotebookPage } from '../features/notebook/components/NotebookPage';
 import { StudyListPage } from '../features/studies/components/StudyListPage';
 import { SignUpPage } from '../features/auth/components/SignUpPage';
@@ -34,6 +35,7 @@ export const routes: RouteObject[] = [
       { index: true, element: <StudyListPage /> },
       { path: '/labs/:labId', element: <StudyListPage /> },
       { path: '/labs/:labId/studies/:studyId', element: <NotebookPage /> },
+      { path: '/labs/:labId/groups', element: <GroupsPage /> },
       { path: '/labs/:labId/datasets', element: <DatasetListPage /> },
       { path: '/labs/:labId/datasets/new', element: <DatasetImportPage /> },
       { path: '/labs/:labId/datasets/:datasetId', element: <DatasetPage /> },

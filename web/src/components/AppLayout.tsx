@@ -53,6 +53,7 @@ function useLabNavigation(): { to: string; label: string }[] {
   const base = `/labs/${membership.labId}`;
   const items = [
     { to: `${base}/datasets`, label: 'Datasets' },
+    { to: `${base}/groups`, label: 'Reference groups' },
     { to: `${base}/members`, label: 'Members' },
   ];
   if (membership.role === 'pi') {
