@@ -7,10 +7,14 @@ module.exports = {
   rootDir: '.',
   roots: ['<rootDir>/src', '<rootDir>/test'],
   testEnvironment: 'node',
+  // TypeScript sources first: a stray compiled .js beside a .ts must never shadow it.
+  moduleFileExtensions: ['ts', 'js', 'json', 'node'],
   testMatch: ['**/*.spec.ts'],
   transform: { '^.+\\.ts$': tsJest, '^.+\\.js$': tsJest },
   // ESM-only packages are turned into CommonJS for Jest.
-  transformIgnorePatterns: ['/node_modules/(?!(d3-array|internmap)/)'],
+  transformIgnorePatterns: [
+    '/node_modules/(?!(d3-array|internmap|archiver|zip-stream|compress-commons|crc32-stream|is-stream)/)',
+  ],
   moduleNameMapper: {
     '^@provenote/shared$': '<rootDir>/../shared/src/index.ts',
     '^@provenote/workers$': '<rootDir>/../workers/src/index.ts',
