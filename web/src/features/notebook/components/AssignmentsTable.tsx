@@ -1,4 +1,4 @@
-import { Group, Select, TextInput } from '@mantine/core';
+import { Group, Select, Tabs, TextInput } from '@mantine/core';
 import { useDebouncedValue } from '@mantine/hooks';
 import { DataTable, type DataTableSortStatus } from 'mantine-datatable';
 import 'mantine-datatable/styles.css';
@@ -6,6 +6,7 @@ import { useState } from 'react';
 import { assignmentVerdicts, type AssignmentRow, type AssignmentsQuery } from '@provenote/shared/schemas';
 import { errorMessage } from '../../../app/api-client';
 import { useAssignments } from '../api/assignments';
+import { ProbabilityHeatmap } from '../../plots/components/ProbabilityHeatmap';
 import { AssignmentDrawer } from './AssignmentDrawer';
 
 const formatP = (p: number | null) => (p === null ? '—' : p < 0.001 ? p.toExponential(2) : p.toFixed(3));
@@ -17,9 +18,10 @@ interface Props {
   studyId: string;
   runId: string;
   canOverride: boolean;
+  basis: 'chi2' | 'hotelling';
 }
 
-export function AssignmentsTable({ labId, studyId, runId, canOverride }: Props) {
+export function AssignmentsTable({ labId, studyId, runId, canOverride, basis }: Props) {
   const [page, setPage] = useState(1);
   const [verdict, setVerdict] = useState<string | null>(null);
   const [group, setGroup] = useState<string | null>(null);
@@ -72,55 +74,66 @@ export function AssignmentsTable({ labId, studyId, runId, canOverride }: Props) 
           clearable
         />
       </Group>
-      <DataTable<AssignmentRow>
-        aria-label="Assignments of the unknowns"
-        withTableBorder
-        striped
-        highlightOnHover
-        minHeight={200}
-        idAccessor="sampleId"
-        records={data?.rows ?? []}
-        fetching={results.isFetching}
-        totalRecords={data?.total ?? 0}
-        recordsPerPage={data?.pageSize ?? 50}
-        page={page}
-        onPageChange={setPage}
-        sortStatus={sortStatus}
-        onSortStatusChange={(s) => {
-          setPage(1);
-          setSortStatus(s);
-        }}
-        noRecordsText={
-          results.isError ? `Could not load the results: ${errorMessage(results.error)}` : 'No unknowns match'
-        }
-        onRowClick={({ record }) => setOpen(record)}
-        columns={[
-          { accessor: 'sampleId', title: 'Sample', sortable: true },
-          { accessor: 'verdict', title: 'Verdict', sortable: true },
-          { accessor: 'group', title: 'Best group', sortable: true },
-          {
-            accessor: 'probability',
-            title: 'Probability',
-            sortable: true,
-            textAlign: 'right',
-            render: (r) => formatP(r.probability),
-          },
-          { accessor: 'runnerUp', title: 'Runner-up', render: (r) => r.runnerUp ?? '—' },
-          {
-            accessor: 'runnerUpProbability',
-            title: 'Runner-up probability',
-            sortable: true,
-            textAlign: 'right',
-            render: (r) => formatP(r.runnerUpProbability),
-          },
-          ...(data?.groups ?? []).map((g, i) => ({
-            accessor: `d2-${g.name}`,
-            title: `D² ${g.name}`,
-            textAlign: 'right' as const,
-            render: (r: AssignmentRow) => r.d2[i].toFixed(2),
-          })),
-        ]}
-      />
+      <Tabs defaultValue="table" keepMounted={false}>
+        <Tabs.List>
+          <Tabs.Tab value="table">Table</Tabs.Tab>
+          <Tabs.Tab value="heatmap">Probability heat map</Tabs.Tab>
+        </Tabs.List>
+        <Tabs.Panel value="heatmap" pt="xs">
+          {data && <ProbabilityHeatmap page={data} initialBasis={basis} onOpen={setOpen} />}
+        </Tabs.Panel>
+        <Tabs.Panel value="table" pt="xs">
+          <DataTable<AssignmentRow>
+            aria-label="Assignments of the unknowns"
+            withTableBorder
+            striped
+            highlightOnHover
+            minHeight={200}
+            idAccessor="sampleId"
+            records={data?.rows ?? []}
+            fetching={results.isFetching}
+            totalRecords={data?.total ?? 0}
+            recordsPerPage={data?.pageSize ?? 50}
+            page={page}
+            onPageChange={setPage}
+            sortStatus={sortStatus}
+            onSortStatusChange={(s) => {
+              setPage(1);
+              setSortStatus(s);
+            }}
+            noRecordsText={
+              results.isError ? `Could not load the results: ${errorMessage(results.error)}` : 'No unknowns match'
+            }
+            onRowClick={({ record }) => setOpen(record)}
+            columns={[
+              { accessor: 'sampleId', title: 'Sample', sortable: true },
+              { accessor: 'verdict', title: 'Verdict', sortable: true },
+              { accessor: 'group', title: 'Best group', sortable: true },
+              {
+                accessor: 'probability',
+                title: 'Probability',
+                sortable: true,
+                textAlign: 'right',
+                render: (r) => formatP(r.probability),
+              },
+              { accessor: 'runnerUp', title: 'Runner-up', render: (r) => r.runnerUp ?? '—' },
+              {
+                accessor: 'runnerUpProbability',
+                title: 'Runner-up probability',
+                sortable: true,
+                textAlign: 'right',
+                render: (r) => formatP(r.runnerUpProbability),
+              },
+              ...(data?.groups ?? []).map((g, i) => ({
+                accessor: `d2-${g.name}`,
+                title: `D² ${g.name}`,
+                textAlign: 'right' as const,
+                render: (r: AssignmentRow) => r.d2[i].toFixed(2),
+              })),
+            ]}
+          />
+        </Tabs.Panel>
+      </Tabs>
       {data && (
         <AssignmentDrawer
           labId={labId}

@@ -81,6 +81,7 @@ export function AssignCard({
             studyId={study.id}
             runId={step.runId}
             canOverride={canOverride && step.status === 'current'}
+            basis={saved?.probability ?? 'hotelling'}
           />
         </>
       )}
