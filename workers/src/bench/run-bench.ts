@@ -1,15 +1,17 @@
 import { cpus, loadavg, platform, release } from 'node:os';
 import { join } from 'node:path';
 import type { BenchFigure, BenchSection } from './bench-section';
+import { apiBench } from './api.bench';
 import { bundleBench } from './bundle.bench';
 import { e2eBench } from './e2e.bench';
 import { engineBench } from './engine.bench';
 import { importBench } from './import.bench';
 import { mergeResults, type BenchResults } from './results-file';
+import { webBench } from './web.bench';
 import { stopBenchStack } from './stack/bench-stack';
 
 /** Sections run in this order; further sections (import, API, bundle) are appended here. */
-export const SECTIONS: readonly BenchSection[] = [engineBench, bundleBench, importBench, e2eBench];
+export const SECTIONS: readonly BenchSection[] = [engineBench, bundleBench, importBench, e2eBench, apiBench, webBench];
 
 export function formatTable(figures: readonly BenchFigure[]): string {
   const width = Math.max(...figures.map((f) => f.label.length));
