@@ -5,6 +5,7 @@ import { ZodValidationPipe } from 'nestjs-zod';
 import { AccountsModule } from './accounts/accounts.module';
 import { AuditModule } from './audit/audit.module';
 import { AuthModule } from './auth/auth.module';
+import { BundlesModule } from './bundles/bundles.module';
 import { AllExceptionsFilter } from './common/all-exceptions.filter';
 import type { AppConfig } from './config/config';
 import { AppConfigModule } from './config/config.module';
@@ -37,6 +38,7 @@ export class AppModule {
         GroupsModule,
         StudiesModule,
         RunsModule,
+        BundlesModule,
       ],
       providers: [
         { provide: APP_PIPE, useClass: ZodValidationPipe },

@@ -1,6 +1,7 @@
 import { Inject, Injectable, Logger, type OnApplicationBootstrap } from '@nestjs/common';
 import type Redis from 'ioredis';
-import { runProcessors, startRunWorker, type RunQueue } from '@provenote/workers';
+import { createBundleProcessor, runProcessors, startRunWorker, type RunQueue } from '@provenote/workers';
+import { PgBundleSource } from '../bundles/pg-bundle-source';
 import { APP_CONFIG } from '../config/config.module';
 import type { AppConfig } from '../config/config';
 import { QUEUE_PREFIX, RUN_QUEUE } from '../queue/queue.module';
@@ -23,6 +24,7 @@ export class RunWorkerHost implements OnApplicationBootstrap {
     @Inject(APP_CONFIG) private readonly config: AppConfig,
     private readonly store: PgRunStore,
     private readonly notifier: RunEndedNotifier,
+    private readonly bundleSource: PgBundleSource,
   ) {}
 
   onApplicationBootstrap() {
@@ -33,7 +35,7 @@ export class RunWorkerHost implements OnApplicationBootstrap {
       redis: this.redis,
       prefix: this.prefix,
       concurrency: this.config.WORKER_CONCURRENCY,
-      processors: runProcessors,
+      processors: { ...runProcessors, bundle: createBundleProcessor(this.bundleSource) },
       onRunFinished: (event) => this.notifier.runEnded(event),
       log: (message) => this.logger.warn(message),
     });

@@ -1,5 +1,6 @@
 import { type DynamicModule, Module } from '@nestjs/common';
 import { TypeOrmModule } from '@nestjs/typeorm';
+import { PgBundleSource } from '../bundles/pg-bundle-source';
 import { APP_CONFIG } from '../config/config.module';
 import type { AppConfig } from '../config/config';
 import { PgRunStore } from './pg-run-store';
@@ -34,6 +35,7 @@ export class RunsCoreModule {
       imports: [TypeOrmModule.forFeature(entities)],
       providers: [
         PgRunStore,
+        PgBundleSource,
         RunEndedNotifier,
         // MailModule is global in the api and imported by the worker process.
         { provide: RUN_MAILER, useExisting: MailService },

@@ -10,3 +10,4 @@ export * from './accounts';
 export * from './audit';
 export * from './datasets';
 export * from './bundle';
+export * from './bundle-api';
