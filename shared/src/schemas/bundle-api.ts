@@ -58,10 +58,12 @@ export const openedBundleSchema = z.object({
 });
 export type OpenedBundle = z.infer<typeof openedBundleSchema>;
 
-/** The 422 answer to a bundle that does not verify: nothing was stored; `problems` name each file. */
+/**
+ * The 422 answer to a bundle that does not verify: nothing was stored. Each error names the file
+ * ("(archive)" for the zip as a whole) and starts with the problem's kind ("checksum: …").
+ */
 export const rejectedBundleSchema = z.object({
   message: z.string(),
   errors: z.array(z.object({ path: z.string(), message: z.string() })),
-  verification: bundleVerificationSchema,
 });
 export type RejectedBundle = z.infer<typeof rejectedBundleSchema>;

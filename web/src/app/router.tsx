@@ -9,6 +9,7 @@ import { RequireSession } from '../features/auth/components/RequireSession';
 import { ResetPasswordPage } from '../features/auth/components/ResetPasswordPage';
 import { SignInPage } from '../features/auth/components/SignInPage';
 import { GroupsPage } from '../features/groups/components/GroupsPage';
+import { OpenBundlePage } from '../features/bundles/components/OpenBundlePage';
 import { NotebookPage } from '../features/notebook/components/NotebookPage';
 import { StudyListPage } from '../features/studies/components/StudyListPage';
 import { SignUpPage } from '../features/auth/components/SignUpPage';
@@ -39,6 +40,7 @@ export const routes: RouteObject[] = [
       { path: '/labs/:labId/datasets', element: <DatasetListPage /> },
       { path: '/labs/:labId/datasets/new', element: <DatasetImportPage /> },
       { path: '/labs/:labId/datasets/:datasetId', element: <DatasetPage /> },
+      { path: '/labs/:labId/bundles/open', element: <OpenBundlePage /> },
       { path: '/labs/:labId/members', element: <MembersPage /> },
       { path: '/labs/:labId/audit', element: <AuditLogPage /> },
       { path: '/labs/:labId/outbox', element: <OutboxPage /> },

@@ -90,7 +90,7 @@ export function NotebookCards(props: Props) {
                 error={props.signOffError}
               />
             )}
-            {step.key === 'export' && <ExportCard />}
+            {step.key === 'export' && <ExportCard labId={labId} study={study} isPi={role === 'pi'} />}
           </StepCard>
         );
       })}
