@@ -7,6 +7,7 @@ import {
   stepBlocker,
   stepLabels,
   stepParametersSchemas,
+  type ElementSummary,
   type GroupSizes,
   type StepEditResult,
   type StepKey,
@@ -16,6 +17,7 @@ import { AuditService } from '../audit/audit.service';
 import type { AuthUser, LabMembership } from '../auth/auth.types';
 import { GroupsService } from '../groups/groups.service';
 import { assertDataStep } from './data-step-check';
+import { elementSummary } from './element-summary';
 import { groupSizes } from './group-sizes';
 import { assertMayEdit } from './study-access';
 import { StudyStepEntity } from './study-step.entity';
@@ -95,6 +97,12 @@ export class StepsService {
       return stale;
     });
     return { study: await this.studies.get(labId, studyId), staleSteps };
+  }
+
+  async elementSummary(labId: string, studyId: string): Promise<ElementSummary> {
+    const { steps } = await this.studies.load(labId, studyId);
+    const data = steps.find((s) => s.key === 'data')?.parameters as StepParameters['data'] | null;
+    return elementSummary(this.dataSource.manager, labId, data);
   }
 
   async groupSizes(labId: string, studyId: string): Promise<GroupSizes> {

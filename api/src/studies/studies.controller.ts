@@ -3,6 +3,7 @@ import { ApiTags } from '@nestjs/swagger';
 import {
   stepKeySchema,
   type CheckResults,
+  type ElementSummary,
   type GroupSizes,
   type Override,
   type StepEditResult,
@@ -107,6 +108,12 @@ export class StudiesController {
     @CurrentUser() user: AuthUser,
   ): Promise<StepEditResult> {
     return this.steps.edit(labId, studyId, stepKeySchema.parse(stepKey), body.parameters, membership, user);
+  }
+
+  @Roles(...ANY_LAB_ROLE)
+  @Get(':studyId/element-summary')
+  elementSummary(@Param('labId') labId: string, @Param('studyId', uuid) studyId: string): Promise<ElementSummary> {
+    return this.steps.elementSummary(labId, studyId);
   }
 
   @Roles(...ANY_LAB_ROLE)

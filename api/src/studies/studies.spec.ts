@@ -41,6 +41,7 @@ describe('studies and their step cards (HTTP, PostgreSQL)', () => {
     'Sample,Group,Zr ppm,Nb ppm,La ppm,Th ppm',
     ...['N1', 'N2', 'N3'].map((id, i) => `${id},North ridge,${210 + i},${12 + i},${31 + i},${9 + i}`),
     ...['S1', 'S2', 'S3'].map((id, i) => `${id},South fan,${95 + i},${24 + i},${44 + i},${14 + i}`),
+    'N4,North ridge,<5,13,30,10',
   ].join('\n');
 
   const base = () => `/api/labs/${labId}/studies`;
@@ -147,7 +148,11 @@ describe('studies and their step cards (HTTP, PostgreSQL)', () => {
       .send({ datasetVersionId: otherReferenceVersionId })
       .expect(201);
     const northRidge = res.body.groups.find((g: { name: string }) => g.name === 'North ridge');
-    expect(northRidge.versions[0]).toMatchObject({ source: 'column', memberIds: ['N1', 'N2', 'N3'], approvedAt: null });
+    expect(northRidge.versions[0]).toMatchObject({
+      source: 'column',
+      memberIds: ['N1', 'N2', 'N3', 'N4'],
+      approvedAt: null,
+    });
     const again = await members.analyst.agent
       .post(`/api/labs/${labId}/groups/from-column`)
       .send({ datasetVersionId: otherReferenceVersionId })
@@ -158,6 +163,20 @@ describe('studies and their step cards (HTTP, PostgreSQL)', () => {
       .post(`/api/labs/${labId}/groups/from-column`)
       .send({ datasetVersionId: otherReferenceVersionId })
       .expect(403);
+  });
+
+  it('summarises each element of the reference data for the Prepare card', async () => {
+    const study = await createStudy(members.analyst);
+    await members.analyst.agent
+      .put(`${base()}/${study.id}/steps/data`)
+      .send({ parameters: { referenceVersionId, unknownsVersionId: null } })
+      .expect(200);
+    const res = await members.guest.agent.get(`${base()}/${study.id}/element-summary`).expect(200);
+    expect(res.body.samples).toBe(7);
+    const zr = res.body.elements.find((e: { element: string }) => e.element === 'Zr');
+    // Quartiles by linear interpolation between order statistics, as PostgreSQL's percentile_cont
+    // defines them (PostgreSQL 15 manual, "Ordered-Set Aggregate Functions"): of 95, 96, 97, 210, 211, 212.
+    expect(zr).toEqual({ element: 'Zr', withValue: 7, fractionDetected: 6 / 7, median: 153.5, q1: 96.25, q3: 210.75 });
   });
 
   it('answers invalid settings with the field to fix', async () => {

@@ -223,3 +223,24 @@ export const groupSizesSchema = z.object({
   ),
 });
 export type GroupSizes = z.infer<typeof groupSizesSchema>;
+
+/**
+ * GET /api/labs/:labId/studies/:studyId/element-summary — per measured element of the reference data:
+ * how many samples have a number, the share measured above the detection limit, and the median and
+ * quartiles (ppm) of the measured values (values reported below the limit are left out of them).
+ */
+export const elementSummarySchema = z.object({
+  datasetVersionId: z.uuid(),
+  samples: z.number().int(),
+  elements: z.array(
+    z.object({
+      element: z.string(),
+      withValue: z.number().int(),
+      fractionDetected: z.number().min(0).max(1),
+      median: z.number().nullable(),
+      q1: z.number().nullable(),
+      q3: z.number().nullable(),
+    }),
+  ),
+});
+export type ElementSummary = z.infer<typeof elementSummarySchema>;

@@ -5,6 +5,7 @@ import { renderRoutes } from '../../../test-utils/render';
 import {
   assignmentsPage,
   checkResults,
+  elementSummary,
   groupSizes,
   LAB,
   referenceDataset,
@@ -33,6 +34,7 @@ function answers(
     [`GET ${base}/datasets`]: () => ({ body: [referenceDataset] }),
     [`GET ${base}/groups`]: () => ({ body: { groups: [] } }),
     [`GET ${base}/studies/${STUDY}/group-sizes`]: () => ({ body: groupSizes }),
+    [`GET ${base}/studies/${STUDY}/element-summary`]: () => ({ body: elementSummary }),
     [`GET ${base}/studies/${STUDY}/check-results`]: () => ({ body: checkResults }),
     [`GET ${base}/studies/${STUDY}/overrides`]: () => ({ body: { overrides: [] } }),
     [`GET ${base}/runs/${current.steps[4].runId}/assignments`]: () => ({ body: assignmentsPage }),
@@ -70,6 +72,8 @@ describe('NotebookPage', () => {
     ]);
     expect(within(card(/Export/)).getByText('Not run')).toBeInTheDocument();
 
+    expect(await within(card(/Prepare/)).findByRole('table', { name: 'Summary per element' })).toBeInTheDocument();
+    expect(within(card(/Prepare/)).getByText('75 %')).toBeInTheDocument();
     expect(await within(card(/Reference groups/)).findByText('12.3 %')).toBeInTheDocument();
     expect(within(card(/Reference groups/)).getByText(/true members look like outsiders/)).toBeInTheDocument();
     expect(

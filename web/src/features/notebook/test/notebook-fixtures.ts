@@ -160,3 +160,12 @@ export const assignmentsPage = {
     },
   ],
 };
+
+export const elementSummary = {
+  datasetVersionId: REFERENCE_VERSION,
+  samples: 8,
+  elements: [
+    { element: 'Zr', withValue: 8, fractionDetected: 1, median: 150, q1: 96, q3: 210 },
+    { element: 'Nb', withValue: 8, fractionDetected: 0.75, median: 14.2, q1: 12.1, q3: 24.5 },
+  ],
+};

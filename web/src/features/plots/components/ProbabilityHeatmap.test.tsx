@@ -16,7 +16,9 @@ vi.mock('./PlotlyImpl', () => ({
     onInitialized: (figure: unknown, div: HTMLElement) => void;
   }) => (
     <button
-      ref={(element) => element && props.onInitialized({}, element)}
+      ref={(element) => {
+        if (element) props.onInitialized({}, element);
+      }}
       onClick={() => props.onClick({ points: [{ x: 'South fan', y: 'U7', curveNumber: 0 }] })}
     >
       {JSON.stringify(props.data[0].z)}

@@ -12,6 +12,8 @@ import {
 import { useState } from 'react';
 import type { StepParameters } from '@provenote/shared/schemas';
 import { useDatasetList } from '../../api/datasets';
+import { useElementSummary } from '../../api/element-summary';
+import { ElementSummaryTable } from '../ElementSummaryTable';
 import { stepParameters, type CardProps } from './card-props';
 
 type Prepare = StepParameters['prepare'];
@@ -47,6 +49,7 @@ export function PrepareCard({ labId, study, step, readOnly, onSave, saving, erro
   const datasets = useDatasetList(labId);
   const version = datasets.data?.flatMap((d) => d.versions).find((v) => v.id === referenceId);
   const elements = [...new Set(version?.columns.map((c) => c.element) ?? values.elements)];
+  const summary = useElementSummary(labId, study.id, referenceId);
 
   return (
     <Stack gap="sm">
@@ -117,6 +120,7 @@ export function PrepareCard({ labId, study, step, readOnly, onSave, saving, erro
           />
         )}
       </SimpleGrid>
+      {summary.data && <ElementSummaryTable summary={summary.data} chosen={values.elements} />}
       {!readOnly && (
         <Group>
           <Button onClick={() => onSave(values)} loading={saving}>
