@@ -37,6 +37,12 @@ export const e2eBench: BenchSection = {
         unit: 'ms',
       },
       {
+        key: 'e2e.100000x8.assign_start_ms',
+        label: 'e2e: of which the API snapshots the inputs and queues',
+        value: ms(run.assignStartMs),
+        unit: 'ms',
+      },
+      {
         key: 'e2e.api_peak_rss_mb',
         label: 'e2e: API process peak resident memory',
         value: Math.round(run.apiPeakRssMb),

@@ -11,6 +11,8 @@ export interface BenchRun {
   readonly uploadMs: number;
   readonly checkMs: number;
   readonly assignMs: number;
+  /** The API's part of the assign run: reading the unknowns, writing the input snapshot, queueing. */
+  readonly assignStartMs: number;
   readonly totalMs: number;
   readonly apiPeakRssMb: number;
   readonly workerPeakRssMb: number;
@@ -41,15 +43,17 @@ async function runCard(
   stack: BenchStack,
   studyId: string,
   key: 'check' | 'assign',
-): Promise<{ runId: string; ms: number }> {
+): Promise<{ runId: string; ms: number; startMs: number }> {
   const started = performance.now();
   const study = (
     await stack.client.ok('POST', `/api/labs/${stack.labId}/studies/${studyId}/steps/${key}/run`)
   ).json<StudyView>();
+  // The API answers once the inputs are copied into the run's snapshot and the job is queued.
+  const startMs = performance.now() - started;
   const runId = study.steps.find((s) => s.key === key)?.runId;
   if (!runId) throw new Error(`starting "${key}" gave no run id`);
   await waitForRun(stack, runId, 300_000);
-  return { runId, ms: performance.now() - started };
+  return { runId, ms: performance.now() - started, startMs };
 }
 
 /**
@@ -100,6 +104,7 @@ async function runStudy(stack: BenchStack): Promise<BenchRun> {
     uploadMs,
     checkMs: check.ms,
     assignMs: assign.ms,
+    assignStartMs: assign.startMs,
     totalMs: performance.now() - started,
     apiPeakRssMb: stack.apiMemory.peakMb(),
     workerPeakRssMb: stack.workerMemory.peakMb(),
