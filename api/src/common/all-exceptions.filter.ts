@@ -9,6 +9,18 @@ interface ErrorBody {
   correlationId?: string;
 }
 
+/**
+ * Errors raised by Express middleware before Nest sees the request (body-parser's "request entity too
+ * large", a JSON body that does not parse) follow the http-errors convention: a 4xx `status` and
+ * `expose: true` when the message is meant for the caller.
+ */
+function clientErrorOf(exception: unknown): { status: number; message: string } | null {
+  if (typeof exception !== 'object' || exception === null) return null;
+  const { status, expose, message } = exception as { status?: unknown; expose?: unknown; message?: unknown };
+  if (typeof status !== 'number' || status < 400 || status > 499 || expose !== true) return null;
+  return { status, message: typeof message === 'string' ? message : 'The request cannot be read' };
+}
+
 function zodErrors(error: ZodError) {
   return error.issues.map((issue) => ({ path: issue.path.join('.'), message: issue.message }));
 }
@@ -56,6 +68,14 @@ export class AllExceptionsFilter implements ExceptionFilter {
           : String((response as { message?: unknown }).message ?? exception.message);
       const errors = typeof response === 'object' ? (response as ErrorBody).errors : undefined;
       return { status: exception.getStatus(), body: errors ? { message, errors } : { message } };
+    }
+    const clientError = clientErrorOf(exception);
+    if (clientError) {
+      const message =
+        clientError.status === HttpStatus.PAYLOAD_TOO_LARGE
+          ? `The request body is too large (${clientError.message})`
+          : clientError.message;
+      return { status: clientError.status, body: { message } };
     }
     this.logger.error(
       `[${correlationId}] ${exception instanceof Error ? (exception.stack ?? exception.message) : String(exception)}`,
