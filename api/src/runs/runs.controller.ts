@@ -73,7 +73,12 @@ export class RunsController {
    */
   @Roles(...ANY_LAB_ROLE)
   @Sse(':runId/events')
-  events(@Param('labId') labId: string, @Param('runId', ParseUUIDPipe) runId: string): Observable<MessageEvent> {
+  async events(
+    @Param('labId') labId: string,
+    @Param('runId', ParseUUIDPipe) runId: string,
+  ): Promise<Observable<MessageEvent>> {
+    // Looked up before the stream opens, so another lab's run id is a 404 rather than a 200 stream with an error event.
+    await this.runs.get(labId, runId);
     return defer(() => {
       const live = new ReplaySubject<RunEvent>();
       const subscription = this.relay.events(runId).subscribe(live);
