@@ -9,6 +9,8 @@ import {
   stepParametersSchemas,
   type ElementSummary,
   type GroupSizes,
+  type Scatter,
+  type ScatterQuery,
   type StepEditResult,
   type StepKey,
   type StepParameters,
@@ -19,6 +21,7 @@ import { GroupsService } from '../groups/groups.service';
 import { assertDataStep } from './data-step-check';
 import { elementSummary } from './element-summary';
 import { groupSizes } from './group-sizes';
+import { scatter } from './scatter';
 import { assertMayEdit } from './study-access';
 import { StudyStepEntity } from './study-step.entity';
 import { StudiesService } from './studies.service';
@@ -103,6 +106,21 @@ export class StepsService {
     const { steps } = await this.studies.load(labId, studyId);
     const data = steps.find((s) => s.key === 'data')?.parameters as StepParameters['data'] | null;
     return elementSummary(this.dataSource.manager, labId, data);
+  }
+
+  async scatter(labId: string, studyId: string, query: ScatterQuery): Promise<Scatter> {
+    const { steps } = await this.studies.load(labId, studyId);
+    const settings = <K extends StepKey>(key: K) =>
+      steps.find((s) => s.key === key)?.parameters as StepParameters[K] | null;
+    const assign = steps.find((s) => s.key === 'assign');
+    const assignRunId = assign && (assign.status === 'current' || assign.status === 'stale') ? assign.runId : null;
+    return scatter(
+      this.dataSource.manager,
+      labId,
+      { data: settings('data'), groups: settings('groups'), check: settings('check') },
+      assignRunId,
+      query,
+    );
   }
 
   async groupSizes(labId: string, studyId: string): Promise<GroupSizes> {

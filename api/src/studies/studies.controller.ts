@@ -6,6 +6,7 @@ import {
   type ElementSummary,
   type GroupSizes,
   type Override,
+  type Scatter,
   type StepEditResult,
   type Study,
   type StudyList,
@@ -24,6 +25,7 @@ import {
   CopyStudyDto,
   CreateOverrideDto,
   CreateStudyDto,
+  ScatterQueryDto,
   SignOffDto,
   UpdateStepDto,
   UpdateStudyDto,
@@ -114,6 +116,16 @@ export class StudiesController {
   @Get(':studyId/element-summary')
   elementSummary(@Param('labId') labId: string, @Param('studyId', uuid) studyId: string): Promise<ElementSummary> {
     return this.steps.elementSummary(labId, studyId);
+  }
+
+  @Roles(...ANY_LAB_ROLE)
+  @Get(':studyId/scatter')
+  scatter(
+    @Param('labId') labId: string,
+    @Param('studyId', uuid) studyId: string,
+    @Query() query: ScatterQueryDto,
+  ): Promise<Scatter> {
+    return this.steps.scatter(labId, studyId, query);
   }
 
   @Roles(...ANY_LAB_ROLE)

@@ -4,6 +4,7 @@ import {
   copyStudySchema,
   createOverrideSchema,
   createStudySchema,
+  scatterQuerySchema,
   signOffSchema,
   updateStepSchema,
   updateStudySchema,
@@ -16,3 +17,4 @@ export class UpdateStepDto extends createZodDto(updateStepSchema) {}
 export class CreateOverrideDto extends createZodDto(createOverrideSchema) {}
 export class SignOffDto extends createZodDto(signOffSchema) {}
 export class CheckResultsQueryDto extends createZodDto(checkResultsQuerySchema) {}
+export class ScatterQueryDto extends createZodDto(scatterQuerySchema) {}

@@ -117,6 +117,24 @@ describe('running the notebook cards on the queue (HTTP, PostgreSQL, Redis)', ()
     });
     expect(assigned.status).toBe('ready_for_review');
 
+    const plot = (await agent.get(`${base()}/studies/${study.id}/scatter?x=Zr&y=La`).expect(200)).body;
+    expect(plot.reference).toHaveLength(42);
+    expect(new Set(plot.reference.map((p: { group: string }) => p.group))).toEqual(new Set(['North', 'South', 'East']));
+    expect(plot.unknowns).toHaveLength(9);
+    expect(plot.unknowns.every((u: { verdict: string | null }) => u.verdict !== null)).toBe(true);
+    expect(plot.truncated).toBe(false);
+    const [, , zr, , la] = reference.csv
+      .split('\n')
+      .find((line) => line.startsWith('NN1,'))!
+      .split(',');
+    expect(plot.reference.find((p: { sampleId: string }) => p.sampleId === 'NN1')).toMatchObject({
+      x: Number(zr),
+      y: Number(la),
+      group: 'North',
+      belowDetection: false,
+    });
+    await agent.get(`${base()}/studies/${study.id}/scatter?x=Zr&y=Cu`).expect(400);
+
     const page = await agent.get(`${base()}/runs/${assignRun}/assignments`).expect(200);
     expect(page.body.total).toBe(9);
     expect(page.body.groups.map((g: { name: string }) => g.name).sort()).toEqual(['East', 'North', 'South']);

@@ -244,3 +244,34 @@ export const elementSummarySchema = z.object({
   ),
 });
 export type ElementSummary = z.infer<typeof elementSummarySchema>;
+
+/** GET /api/labs/:labId/studies/:studyId/scatter — query string: the two elements to plot. */
+export const scatterQuerySchema = z.object({ x: z.string().min(1), y: z.string().min(1) });
+export type ScatterQuery = z.infer<typeof scatterQuerySchema>;
+
+/** At most this many unknowns are sent for a scatter plot; more would not be readable as points. */
+export const SCATTER_UNKNOWNS_LIMIT = 20_000;
+
+const scatterPointSchema = z.object({
+  sampleId: z.string(),
+  x: z.number(),
+  y: z.number(),
+  /** Either value is a detection limit, not a measurement. */
+  belowDetection: z.boolean(),
+});
+
+/** Measured values (ppm) of two elements: reference members by group, unknowns with their verdicts. */
+export const scatterSchema = z.object({
+  x: z.string(),
+  y: z.string(),
+  reference: z.array(scatterPointSchema.extend({ group: z.string() })),
+  unknowns: z.array(
+    scatterPointSchema.extend({
+      verdict: verdictSchema.nullable(),
+      group: z.string().nullable(),
+    }),
+  ),
+  /** The unknowns were cut at SCATTER_UNKNOWNS_LIMIT (in file order). */
+  truncated: z.boolean(),
+});
+export type Scatter = z.infer<typeof scatterSchema>;
