@@ -3,6 +3,7 @@ import { Injectable, NotFoundException } from '@nestjs/common';
 import { InjectRepository } from '@nestjs/typeorm';
 import type { DatasetMapping, FileLayout, ImportPreview, Problem } from '@provenote/shared';
 import { Repository } from 'typeorm';
+import { RateLimitService } from '../rate-limit/rate-limit.service';
 import { DatasetFile } from './dataset-file.entity';
 import { fileView, rowView } from './dataset-views';
 import { asHttpErrors } from './import-failures';
@@ -14,6 +15,8 @@ import { SavedMapping } from './saved-mapping.entity';
 
 const PREVIEW_ROWS = 100;
 const PREVIEW_PROBLEMS = 500;
+/** Uploads per person per hour: far above a lab's working pace, low enough that a script cannot fill the disk. */
+export const UPLOADS_PER_USER_PER_HOUR = 100;
 
 /** Uploaded files: kept byte-exact before any import, read for the mapping step and the preview. */
 @Injectable()
@@ -21,10 +24,16 @@ export class DatasetFilesService {
   constructor(
     @InjectRepository(DatasetFile) private readonly files: Repository<DatasetFile>,
     @InjectRepository(SavedMapping) private readonly savedMappings: Repository<SavedMapping>,
+    private readonly rateLimits: RateLimitService,
   ) {}
 
   /** Stores a file (if it can be read as a table at all) and proposes a mapping for it. */
   async upload(labId: string, userId: string, filename: string, content: Buffer): Promise<FileLayout> {
+    await this.rateLimits.consume({
+      key: `upload:user:${userId}`,
+      limit: UPLOADS_PER_USER_PER_HOUR,
+      windowSeconds: 3600,
+    });
     return asHttpErrors(async () => {
       const analysis = await analyseFile(content, filename);
       const file = await this.files.save(
