@@ -2,7 +2,7 @@ import 'reflect-metadata';
 import { DataSource } from 'typeorm';
 import { dataSourceOptions } from '../database/typeorm-options';
 import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '../demo/demo-accounts';
-import { seedDemo } from '../demo/seed-demo';
+import { seedDemoLab } from '../demo/seed-demo-lab';
 
 /**
  * Brings the database up to date for `npm start`: applies pending migrations, then loads the demo lab
@@ -16,9 +16,8 @@ async function main() {
   try {
     const applied = await dataSource.runMigrations({ transaction: 'each' });
     if (applied.length > 0) console.log(`Applied migrations: ${applied.map((m) => m.name).join(', ')}`);
-    if (process.env.PROVENOTE_DEMO !== 'off' && (await seedDemo(dataSource))) {
-      console.log('Loaded the demo lab (synthetic data).');
-    }
+    const demo = process.env.PROVENOTE_DEMO !== 'off' ? await seedDemoLab(dataSource) : null;
+    if (demo) console.log(demo);
   } finally {
     await dataSource.destroy();
   }
