@@ -28,8 +28,9 @@ export async function writeRunInputs(
         from,
         slice.map((s) => s.sampleId),
         slice.map((s) => s.group ?? null),
-        slice.flatMap((s) => s.values),
-        slice.flatMap((s) => s.belowDetection ?? new Array<boolean>(p).fill(false)),
+        // Literals joined here rather than arrays for pg to escape element by element (see float8Literal).
+        `{${slice.map((s) => s.values.join(',')).join(',')}}`,
+        `{${slice.map((s) => (s.belowDetection ?? new Array<boolean>(p).fill(false)).join(',')).join(',')}}`,
         p,
       ],
     );
