@@ -2,10 +2,12 @@ import { Group, Select, Tabs, TextInput } from '@mantine/core';
 import { useDebouncedValue } from '@mantine/hooks';
 import { DataTable, type DataTableSortStatus } from 'mantine-datatable';
 import 'mantine-datatable/styles.css';
+import { useQueryClient } from '@tanstack/react-query';
 import { useState } from 'react';
 import { assignmentVerdicts, type AssignmentRow, type AssignmentsQuery } from '@provenote/shared/schemas';
 import { errorMessage } from '../../../app/api-client';
-import { useAssignments } from '../api/assignments';
+import { assignmentsQuery, useAssignments } from '../api/assignments';
+import { BivariatePlot } from '../../plots/components/BivariatePlot';
 import { ProbabilityHeatmap } from '../../plots/components/ProbabilityHeatmap';
 import { AssignmentDrawer } from './AssignmentDrawer';
 
@@ -19,9 +21,12 @@ interface Props {
   runId: string;
   canOverride: boolean;
   basis: 'chi2' | 'hotelling';
+  /** The study's chosen elements, for the two-element plot. */
+  elements: string[];
 }
 
-export function AssignmentsTable({ labId, studyId, runId, canOverride, basis }: Props) {
+export function AssignmentsTable({ labId, studyId, runId, canOverride, basis, elements }: Props) {
+  const queryClient = useQueryClient();
   const [page, setPage] = useState(1);
   const [verdict, setVerdict] = useState<string | null>(null);
   const [group, setGroup] = useState<string | null>(null);
@@ -43,6 +48,15 @@ export function AssignmentsTable({ labId, studyId, runId, canOverride, basis }: 
     search: debouncedSearch || undefined,
   });
   const data = results.data;
+  /** Opens the detail drawer for a sample clicked in a plot (it may be on another results page). */
+  const openSample = async (sampleId: string) => {
+    // Sorted by id, the exact id comes first among the ids it starts.
+    const found = await queryClient.fetchQuery(
+      assignmentsQuery(labId, runId, { page: 1, search: sampleId, sort: 'sampleId', order: 'asc' }),
+    );
+    const row = found.rows.find((r) => r.sampleId === sampleId);
+    if (row) setOpen(row);
+  };
   const resetPage =
     <T,>(set: (v: T) => void) =>
     (v: T) => {
@@ -78,7 +92,17 @@ export function AssignmentsTable({ labId, studyId, runId, canOverride, basis }: 
         <Tabs.List>
           <Tabs.Tab value="table">Table</Tabs.Tab>
           <Tabs.Tab value="heatmap">Probability heat map</Tabs.Tab>
+          <Tabs.Tab value="bivariate">Two elements</Tabs.Tab>
         </Tabs.List>
+        <Tabs.Panel value="bivariate" pt="xs">
+          <BivariatePlot
+            labId={labId}
+            studyId={studyId}
+            elements={elements}
+            groupOrder={data?.groups.map((g) => g.name) ?? []}
+            onOpenUnknown={openSample}
+          />
+        </Tabs.Panel>
         <Tabs.Panel value="heatmap" pt="xs">
           {data && <ProbabilityHeatmap page={data} initialBasis={basis} onOpen={setOpen} />}
         </Tabs.Panel>

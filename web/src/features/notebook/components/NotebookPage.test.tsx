@@ -44,6 +44,9 @@ function answers(
 
 const card = (name: RegExp) => screen.getByRole('region', { name });
 
+// The whole notebook renders seven cards with tables in jsdom; under a loaded machine that takes seconds.
+vi.setConfig({ testTimeout: 20_000 });
+
 describe('NotebookPage', () => {
   const setupMatchMedia = window.matchMedia;
   // mantine-datatable renders a cell only when its media query matches, and asks with an empty query for

@@ -8,6 +8,7 @@ import {
   type Step,
   type StepStatus,
 } from '@provenote/shared/schemas';
+import { CardHelp } from '../../onboarding/components/CardHelp';
 import { RunProgress } from '../../runs/components/RunProgress';
 
 const statusColours: Record<StepStatus, string> = {
@@ -50,6 +51,7 @@ export function StepCard({ labId, step, blocker, locked, onRerun, rerunPending, 
         <Text size="sm" c="dimmed">
           {summary}
         </Text>
+        <CardHelp stepKey={step.key} />
         {step.status === 'running' && step.runId && (
           <RunProgress labId={labId} runId={step.runId} canCancel={!locked} />
         )}

@@ -3,7 +3,7 @@ import { useState } from 'react';
 import type { StepParameters } from '@provenote/shared/schemas';
 import { AssignmentsTable } from '../AssignmentsTable';
 import { EvidenceCaution } from '../EvidenceCaution';
-import type { CardProps } from './card-props';
+import { stepParameters, type CardProps } from './card-props';
 
 interface Props extends CardProps {
   /** Analysts and PIs on a study that is not signed off. */
@@ -82,6 +82,7 @@ export function AssignCard({
             runId={step.runId}
             canOverride={canOverride && step.status === 'current'}
             basis={saved?.probability ?? 'hotelling'}
+            elements={stepParameters<StepParameters['prepare']>(study, 'prepare')?.elements ?? []}
           />
         </>
       )}

@@ -1,0 +1,66 @@
+import type { Scatter } from '@provenote/shared/schemas';
+import { groupStyle, verdictStyles } from './palette';
+
+const hover = (x: string, y: string) =>
+  `Sample %{customdata}<br>${x} %{x} ppm<br>${y} %{y} ppm<extra>%{fullData.name}</extra>`;
+
+/**
+ * Plotly traces for two measured elements: one trace per reference group (its colour and shape, filled),
+ * then the unknowns by verdict as open markers — an assigned unknown in its group's colour and shape.
+ * Values are drawn as stored; nothing is computed here.
+ */
+export function scatterTraces(data: Scatter, groupOrder: string[]) {
+  const groups = [...new Set([...groupOrder, ...data.reference.map((p) => p.group)])];
+  const styleOf = (group: string) => groupStyle(groups.indexOf(group));
+  const base = (name: string, points: { x: number; y: number; sampleId: string }[]) => ({
+    type: 'scatter' as const,
+    mode: 'markers' as const,
+    name,
+    x: points.map((p) => p.x),
+    y: points.map((p) => p.y),
+    customdata: points.map((p) => p.sampleId),
+    hovertemplate: hover(data.x, data.y),
+  });
+  const reference = groups
+    .map((group) => ({ group, points: data.reference.filter((p) => p.group === group) }))
+    .filter(({ points }) => points.length > 0)
+    .map(({ group, points }) => ({
+      ...base(group, points),
+      marker: { color: styleOf(group).colour, symbol: styleOf(group).symbol, size: 8, opacity: 0.75 },
+    }));
+  const assigned = groups
+    .map((group) => ({ group, points: data.unknowns.filter((u) => u.verdict === 'assigned' && u.group === group) }))
+    .filter(({ points }) => points.length > 0)
+    .map(({ group, points }) => ({
+      ...base(`Unknown, assigned to ${group}`, points),
+      marker: {
+        color: styleOf(group).colour,
+        symbol: `${styleOf(group).symbol}${verdictStyles.assigned.symbolSuffix}`,
+        size: 11,
+        line: { width: 2 },
+      },
+    }));
+  const others = (['ambiguous', 'unassigned'] as const)
+    .map((verdict) => ({ verdict, points: data.unknowns.filter((u) => u.verdict === verdict) }))
+    .filter(({ points }) => points.length > 0)
+    .map(({ verdict, points }) => ({
+      ...base(`Unknown, ${verdictStyles[verdict].label.toLowerCase()}`, points),
+      marker: {
+        color: verdictStyles[verdict].colour,
+        symbol: verdictStyles[verdict].symbol,
+        size: 11,
+        line: { width: 2 },
+      },
+    }));
+  const pending = data.unknowns.filter((u) => u.verdict === null);
+  const notAssigned =
+    pending.length > 0
+      ? [
+          {
+            ...base('Unknown, not assigned yet', pending),
+            marker: { color: '#777777', symbol: 'circle-open', size: 9 },
+          },
+        ]
+      : [];
+  return [...reference, ...assigned, ...others, ...notAssigned];
+}
