@@ -1,8 +1,10 @@
 import { Alert, Anchor, Button, Group, Loader, Stack, Table, Text, Title } from '@mantine/core';
 import { useDisclosure } from '@mantine/hooks';
+import type { LabRole } from '@provenote/shared/schemas';
 import { Link, useNavigate, useParams } from 'react-router-dom';
 import { errorMessage } from '../../../app/api-client';
 import { useMe } from '../../../app/session';
+import { LabGuide } from '../../onboarding/components/LabGuide';
 import { useStudyList } from '../api/studies';
 import { CreateStudyModal } from './CreateStudyModal';
 import { StudyStatusBadge } from './StudyStatusBadge';
@@ -27,12 +29,13 @@ export function StudyListPage() {
           You are not a member of any lab yet. Ask a PI for an invitation, or start a lab of your own.
         </Text>
       )}
-      {labId && <StudyTable labId={labId} canCreate={membership?.role !== 'guest'} />}
+      {labId && <StudyTable labId={labId} role={membership?.role} />}
     </Stack>
   );
 }
 
-function StudyTable({ labId, canCreate }: { labId: string; canCreate: boolean }) {
+function StudyTable({ labId, role }: { labId: string; role: LabRole | undefined }) {
+  const canCreate = role !== 'guest';
   const studies = useStudyList(labId);
   const navigate = useNavigate();
   const [opened, { open, close }] = useDisclosure(false);
@@ -52,13 +55,7 @@ function StudyTable({ labId, canCreate }: { labId: string; canCreate: boolean })
       />
       {studies.isPending && <Loader size="sm" aria-label="Loading studies" />}
       {studies.isError && <Alert color="red">Could not load the studies: {errorMessage(studies.error)}</Alert>}
-      {studies.isSuccess && studies.data.studies.length === 0 && (
-        <Alert color="blue" title="No studies yet">
-          {canCreate
-            ? 'Start with “New study”: pick the reference data and the unknowns, then work down the cards.'
-            : 'When someone in the lab starts a study, it appears here.'}
-        </Alert>
-      )}
+      {studies.isSuccess && studies.data.studies.length === 0 && <LabGuide labId={labId} role={role} />}
       {studies.isSuccess && studies.data.studies.length > 0 && (
         <Table striped highlightOnHover aria-label="Studies of this lab">
           <Table.Thead>
