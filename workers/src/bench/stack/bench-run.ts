@@ -74,7 +74,7 @@ async function runStudy(stack: BenchStack): Promise<BenchRun> {
   const groups = (
     await stack.client.ok('POST', `${base}/groups/from-column`, { datasetVersionId: ref.versionId })
   ).json<{
-    groups: { versions: { id: string }[] }[];
+    groups: { versions: { id: string; datasetVersionId: string }[] }[];
   }>();
   const study = (
     await stack.client.ok('POST', `${base}/studies`, { name: 'Benchmark study (synthetic)' })
@@ -94,7 +94,13 @@ async function runStudy(stack: BenchStack): Promise<BenchRun> {
     },
   });
   await stack.client.ok('PUT', `${steps}/groups`, {
-    parameters: { groupVersionIds: groups.groups.map((g) => g.versions[0].id) },
+    // The answer lists every group of the lab (the demo lab has its own); only this file's are wanted.
+    parameters: {
+      groupVersionIds: groups.groups
+        .map((g) => g.versions[0])
+        .filter((v) => v.datasetVersionId === ref.versionId)
+        .map((v) => v.id),
+    },
   });
   const check = await runCard(stack, study.id, 'check');
   const assign = await runCard(stack, study.id, 'assign');
