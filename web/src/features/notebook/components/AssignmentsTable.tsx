@@ -1,4 +1,4 @@
-import { Group, Select, Tabs, TextInput } from '@mantine/core';
+import { Button, Group, Select, Tabs, TextInput } from '@mantine/core';
 import { useDebouncedValue } from '@mantine/hooks';
 import { DataTable, type DataTableSortStatus } from 'mantine-datatable';
 import 'mantine-datatable/styles.css';
@@ -130,6 +130,24 @@ export function AssignmentsTable({ labId, studyId, runId, canOverride, basis, el
             }
             onRowClick={({ record }) => setOpen(record)}
             columns={[
+              {
+                accessor: 'details',
+                title: '',
+                render: (r) => (
+                  <Button
+                    size="compact-xs"
+                    variant="subtle"
+                    aria-label={`Details of ${r.sampleId}`}
+                    onClick={(event) => {
+                      // The row's own click opens the drawer too; one opening is enough.
+                      event.stopPropagation();
+                      setOpen(r);
+                    }}
+                  >
+                    Details
+                  </Button>
+                ),
+              },
               { accessor: 'sampleId', title: 'Sample', sortable: true },
               { accessor: 'verdict', title: 'Verdict', sortable: true },
               { accessor: 'group', title: 'Best group', sortable: true },

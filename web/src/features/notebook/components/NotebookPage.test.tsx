@@ -84,6 +84,9 @@ describe('NotebookPage', () => {
     ).toBeInTheDocument();
     expect(await within(card(/Assign/)).findByText('U7')).toBeInTheDocument();
     expect(within(card(/Assign/)).getByText(/statistical evidence, not proof of origin/)).toBeInTheDocument();
+    expect(await within(card(/Assign/)).findByText(/North ridge has few members/)).toBeInTheDocument();
+    await userEvent.click(within(card(/Assign/)).getByRole('button', { name: 'Details of U7' }));
+    expect(await screen.findByRole('table', { name: 'Contributions to D² per element' })).toBeInTheDocument();
   });
 
   it('saves a card, marks the cards below stale and says which', async () => {
