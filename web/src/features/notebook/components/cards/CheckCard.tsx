@@ -91,7 +91,8 @@ export function CheckCard({
         <Stack gap="xs">
           <Select
             label="Member to exclude"
-            data={memberOptions}
+            // Mantine reads an option with a `group` key as a group of options, so only value and label go in.
+            data={memberOptions.map(({ value, label }) => ({ value, label }))}
             value={member}
             onChange={setMember}
             searchable
