@@ -45,9 +45,11 @@ export class AssignmentsService {
     if (query.group) where.push(`group_name = $${values.push(query.group)}`);
     if (query.search) where.push(`sample_id LIKE $${values.push(`${escapeLike(query.search)}%`)}`);
     const direction = query.order === 'desc' ? 'DESC' : 'ASC';
-    const nulls = direction === 'DESC' ? 'NULLS LAST' : 'NULLS FIRST';
     const sort = SORT_COLUMNS[query.sort];
-    const orderBy = sort === 'ordinal' ? `ordinal ${direction}` : `${sort} ${direction} ${nulls}, ordinal ${direction}`;
+    // Only the runner-up probability can be null. A NULLS clause on the other (NOT NULL) columns would not
+    // change the order, but it keeps PostgreSQL from reading the indexes in order, so it sorts every match.
+    const nulls = sort !== 'runner_up_probability' ? '' : direction === 'DESC' ? ' NULLS LAST' : ' NULLS FIRST';
+    const orderBy = sort === 'ordinal' ? `ordinal ${direction}` : `${sort} ${direction}${nulls}, ordinal ${direction}`;
     const offset = (query.page - 1) * RESULTS_PAGE_SIZE;
     const [rows, [{ total }], groups] = await Promise.all([
       this.dataSource.query(

@@ -7,6 +7,7 @@ import type { RunEntity } from './run.entity';
 @Index('run_assignments_runner_up_idx', ['runId', 'runnerUpProbability', 'ordinal'])
 @Index('run_assignments_verdict_idx', ['runId', 'verdict', 'probability', 'ordinal'])
 @Index('run_assignments_group_idx', ['runId', 'groupName', 'probability', 'ordinal'])
+@Index('run_assignments_verdict_group_idx', ['runId', 'verdict', 'groupName', 'probability', 'ordinal'])
 @Index('run_assignments_sample_idx', ['runId', 'sampleId'])
 export class RunAssignmentEntity {
   @PrimaryColumn({ name: 'run_id', type: 'uuid' })
