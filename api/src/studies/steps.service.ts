@@ -6,11 +6,11 @@ import {
   newlyStaleSteps,
   stepBlocker,
   stepLabels,
+  scatterQuerySchema,
   stepParametersSchemas,
   type ElementSummary,
   type GroupSizes,
   type Scatter,
-  type ScatterQuery,
   type StepEditResult,
   type StepKey,
   type StepParameters,
@@ -108,8 +108,9 @@ export class StepsService {
     return elementSummary(this.dataSource.manager, labId, data);
   }
 
-  async scatter(labId: string, studyId: string, query: ScatterQuery): Promise<Scatter> {
+  async scatter(labId: string, studyId: string, rawQuery: Record<string, unknown>): Promise<Scatter> {
     const { steps } = await this.studies.load(labId, studyId);
+    const query = scatterQuerySchema.parse(rawQuery);
     const settings = <K extends StepKey>(key: K) =>
       steps.find((s) => s.key === key)?.parameters as StepParameters[K] | null;
     const assign = steps.find((s) => s.key === 'assign');

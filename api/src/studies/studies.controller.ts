@@ -25,7 +25,6 @@ import {
   CopyStudyDto,
   CreateOverrideDto,
   CreateStudyDto,
-  ScatterQueryDto,
   SignOffDto,
   UpdateStepDto,
   UpdateStudyDto,
@@ -123,7 +122,8 @@ export class StudiesController {
   scatter(
     @Param('labId') labId: string,
     @Param('studyId', uuid) studyId: string,
-    @Query() query: ScatterQueryDto,
+    // Checked after the study is found, so another lab's study id is a 404 whatever the query says.
+    @Query() query: Record<string, unknown>,
   ): Promise<Scatter> {
     return this.steps.scatter(labId, studyId, query);
   }

@@ -4,7 +4,6 @@ import {
   copyStudySchema,
   createOverrideSchema,
   createStudySchema,
-  scatterQuerySchema,
   signOffSchema,
   updateStepSchema,
   updateStudySchema,
@@ -17,4 +16,3 @@ export class UpdateStepDto extends createZodDto(updateStepSchema) {}
 export class CreateOverrideDto extends createZodDto(createOverrideSchema) {}
 export class SignOffDto extends createZodDto(signOffSchema) {}
 export class CheckResultsQueryDto extends createZodDto(checkResultsQuerySchema) {}
-export class ScatterQueryDto extends createZodDto(scatterQuerySchema) {}

@@ -134,6 +134,8 @@ describe('running the notebook cards on the queue (HTTP, PostgreSQL, Redis)', ()
       belowDetection: false,
     });
     await agent.get(`${base()}/studies/${study.id}/scatter?x=Zr&y=Cu`).expect(400);
+    const incomplete = await agent.get(`${base()}/studies/${study.id}/scatter?x=Zr`).expect(400);
+    expect(incomplete.body.errors[0]).toMatchObject({ path: 'y' });
 
     const page = await agent.get(`${base()}/runs/${assignRun}/assignments`).expect(200);
     expect(page.body.total).toBe(9);
