@@ -104,9 +104,10 @@ class RunningStack implements BenchStack {
       if (Date.now() > deadline) throw new Error('the API did not answer /api/health within 60 s');
       await new Promise((r) => setTimeout(r, 200));
     }
-    const cookies = this.client;
+    // A new process means a new session: start from an empty cookie jar on the new address.
+    const previous = this.client;
     this.client = new ApiClient(this.baseUrl);
-    cookies.close();
+    previous.close();
   }
 
   async serveWeb(webDist: string): Promise<void> {
