@@ -14,6 +14,7 @@ import { DatasetsModule } from './datasets/datasets.module';
 import { GroupsModule } from './groups/groups.module';
 import { HealthModule } from './health/health.module';
 import { MailModule } from './mail/mail.module';
+import { ProjectionsModule } from './projections/projections.module';
 import { RateLimitModule } from './rate-limit/rate-limit.module';
 import { RedisModule } from './redis/redis.module';
 import { StudiesModule } from './studies/studies.module';
@@ -39,6 +40,7 @@ export class AppModule {
         StudiesModule,
         RunsModule,
         BundlesModule,
+        ProjectionsModule,
       ],
       providers: [
         { provide: APP_PIPE, useClass: ZodValidationPipe },

@@ -87,6 +87,13 @@ export class PgRunStore implements RunStore {
       for (const [from, to] of rowSlices(results.sampleIds.length)) {
         await insertAssignments(manager, runId, results, from, to);
       }
+      for (const [method, data] of Object.entries(results.projections)) {
+        await manager.query(`INSERT INTO run_projections (run_id, method, data) VALUES ($1, $2, $3::jsonb)`, [
+          runId,
+          method,
+          JSON.stringify(data),
+        ]);
+      }
     });
   }
 
@@ -196,7 +203,13 @@ export class PgRunStore implements RunStore {
         status: string;
       }[];
       if (locked[0]?.status !== 'running') return null;
-      for (const table of ['run_assignments', 'run_check_members', 'run_check_pairs', 'run_groups']) {
+      for (const table of [
+        'run_assignments',
+        'run_check_members',
+        'run_check_pairs',
+        'run_groups',
+        'run_projections',
+      ]) {
         await manager.query(`DELETE FROM ${table} WHERE run_id = $1`, [runId]);
       }
       await write(manager);

@@ -11,3 +11,4 @@ export * from './audit';
 export * from './datasets';
 export * from './bundle';
 export * from './bundle-api';
+export * from './projections';

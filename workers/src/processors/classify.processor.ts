@@ -1,6 +1,7 @@
 import { classifySamples, DEFAULT_MCD_SEED, distanceContributions, fitGroup } from '@provenote/shared';
 import type { RunProcessor } from '../queue/run-worker';
 import { prepareSamples, splitByGroup } from './prepare-samples';
+import { computeProjections } from './projections';
 
 /** Unknowns per slice between checkpoints: small enough that Bull's lock renewal is never starved. */
 export const CLASSIFY_SLICE_ROWS = 4096;
@@ -19,7 +20,8 @@ export const classifyProcessor: RunProcessor = async ({ run, store, checkpoint }
   const preparedUnknowns = prepareSamples(unknowns, parameters);
   await checkpoint(0.1, 'fitting reference groups');
   const fitOptions = { covariance: parameters.covariance, seed: run.seed ?? DEFAULT_MCD_SEED };
-  const models = splitByGroup(reference, preparedReference).map((group) =>
+  const referenceGroups = splitByGroup(reference, preparedReference);
+  const models = referenceGroups.map((group) =>
     fitGroup(group.name, group.rows, preparedReference.variables, fitOptions),
   );
   const modelByName = new Map(models.map((model) => [model.name, model]));
@@ -59,6 +61,19 @@ export const classifyProcessor: RunProcessor = async ({ run, store, checkpoint }
       results.contributions.set(distanceContributions(modelByName.get(verdict.group)!, rows[r]), i * p);
     });
   }
-  await checkpoint(0.85, 'saving results');
-  return store.saveClassifyResults(run.id, results);
+  await checkpoint(0.85, 'projecting');
+  const projections = computeProjections({
+    parameters,
+    groups: referenceGroups.map((group, k) => ({
+      model: models[k],
+      rows: group.rows,
+      sampleIds: group.ordinals.map((i) => reference.sampleIds[i]),
+    })),
+    unknowns: preparedUnknowns,
+    unknownIds: unknowns.sampleIds,
+    verdicts: results.verdicts,
+    bestGroups: results.bestGroups,
+  });
+  await checkpoint(0.9, 'saving results');
+  return store.saveClassifyResults(run.id, { ...results, projections });
 };

@@ -1,4 +1,4 @@
-import type { AssignmentParameters, RunEvent, RunKind } from '@provenote/shared';
+import type { AssignmentParameters, ProjectionMethod, RunEvent, RunKind, StoredProjection } from '@provenote/shared';
 
 /** A run as a processor needs it: what to compute and with which parameters. */
 export interface ClaimedRun {
@@ -44,6 +44,8 @@ export interface ClassifyResults {
   readonly pHotelling: Float64Array;
   /** N × p, sample-major: contributions to D² to the best group. */
   readonly contributions: Float64Array;
+  /** The reference samples and unknowns on principal components and canonical variates, with group ellipses. */
+  readonly projections: Record<ProjectionMethod, StoredProjection>;
 }
 
 /** Leave-one-out results for the members of every reference group, and the separation of the groups. */
