@@ -1,41 +1,63 @@
+import { pipeline } from 'node:stream/promises';
+import { Readable } from 'node:stream';
+import type { PoolClient } from 'pg';
+import { from as copyFrom } from 'pg-copy-streams';
 import type { Problem } from '@provenote/shared';
 import type { EntityManager } from 'typeorm';
 import type { ImportedRow } from './parsing/import-rows';
 
-/** A PostgreSQL array literal ("{1.5,NULL}"): one text parameter per row instead of one per cell. */
+const COPY_NULL = '\\N';
+const COPY_ESCAPES: Record<string, string> = { '\\': '\\\\', '\t': '\\t', '\n': '\\n', '\r': '\\r' };
+
+/** A field of COPY's text format: backslash, tab and line breaks would otherwise end the field or the row. */
+function copyField(value: string | null): string {
+  return value === null ? COPY_NULL : value.replace(/[\\\t\n\r]/g, (c) => COPY_ESCAPES[c]);
+}
+
+/** A PostgreSQL array literal ("{1.5,NULL}"); join formats the numbers in native code. */
 function numberArray(values: (number | null)[]): string {
-  return `{${values.map((value) => (value === null ? 'NULL' : String(value))).join(',')}}`;
+  return `{${values.map((value) => (value === null ? 'NULL' : value)).join(',')}}`;
 }
 
 function textArray(values: (string | null)[]): string {
   return `{${values.map((value) => (value === null ? 'NULL' : `"${value.replace(/["\\]/g, '\\$&')}"`)).join(',')}}`;
 }
 
+/** One dataset_rows line of COPY text, in the column order of ROW_COLUMNS. */
+export function copyLine(versionId: string, row: ImportedRow): string {
+  return [
+    versionId,
+    String(row.position),
+    String(row.sourceRow),
+    copyField(row.sampleId),
+    copyField(row.group),
+    numberArray(row.ppm),
+    numberArray(row.original),
+    `{${row.flags.join(',')}}`,
+    copyField(textArray(row.raw)),
+    copyField(row.attributes ? JSON.stringify(row.attributes) : null),
+  ].join('\t');
+}
+
+const ROW_COLUMNS = 'version_id, position, source_row, sample_id, group_name, ppm, original, flags, raw, attributes';
+
+/** The pg connection behind the import's transaction: COPY must run on it to be part of that transaction. */
+async function transactionClient(manager: EntityManager): Promise<PoolClient> {
+  const runner = manager.queryRunner;
+  if (!runner?.isTransactionActive) throw new Error('dataset rows are written only inside the import transaction');
+  return (await runner.connect()) as PoolClient;
+}
+
 /**
- * Writes a batch of rows with one statement: each column travels as one array parameter and unnest()
- * turns them back into rows, so the cost is a few round trips per thousand samples, never one per row.
+ * Writes a batch of rows with one COPY in text format: PostgreSQL reads the rows as a stream, with
+ * none of the per-statement parameter handling and unnest() of a batched INSERT, which profiled as
+ * the import's largest cost.
  */
 export async function insertRows(manager: EntityManager, versionId: string, rows: ImportedRow[]): Promise<void> {
   if (rows.length === 0) return;
-  await manager.query(
-    `INSERT INTO dataset_rows (version_id, position, source_row, sample_id, group_name, ppm, original, flags, raw, attributes)
-     SELECT $1, t.position, t.source_row, t.sample_id, t.group_name, t.ppm::float8[], t.original::float8[],
-            t.flags::smallint[], t.raw::text[], t.attributes
-     FROM unnest($2::int[], $3::int[], $4::text[], $5::text[], $6::text[], $7::text[], $8::text[], $9::text[], $10::jsonb[])
-       AS t(position, source_row, sample_id, group_name, ppm, original, flags, raw, attributes)`,
-    [
-      versionId,
-      rows.map((row) => row.position),
-      rows.map((row) => row.sourceRow),
-      rows.map((row) => row.sampleId),
-      rows.map((row) => row.group),
-      rows.map((row) => numberArray(row.ppm)),
-      rows.map((row) => numberArray(row.original)),
-      rows.map((row) => `{${row.flags.join(',')}}`),
-      rows.map((row) => textArray(row.raw)),
-      rows.map((row) => (row.attributes ? JSON.stringify(row.attributes) : null)),
-    ],
-  );
+  const client = await transactionClient(manager);
+  const text = rows.map((row) => `${copyLine(versionId, row)}\n`).join('');
+  await pipeline(Readable.from([text]), client.query(copyFrom(`COPY dataset_rows (${ROW_COLUMNS}) FROM STDIN`)));
 }
 
 export async function insertProblems(
