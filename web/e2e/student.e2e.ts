@@ -1,7 +1,7 @@
 import type { Browser } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { launchBrowser } from './browser';
-import { card, importDataset, journey, REVIEWED_STUDY, signIn } from './journey';
+import { card, cardStatus, importDataset, journey, REVIEWED_STUDY, RUN_WAIT, signIn } from './journey';
 
 describe('the student', () => {
   let browser: Browser;
@@ -10,7 +10,7 @@ describe('the student', () => {
   });
   afterAll(() => browser.close());
 
-  it('cannot edit groups, imports unknowns and copies the demo study onto them', () =>
+  it('cannot edit groups, imports unknowns, copies the demo study onto them and assigns them', () =>
     journey(browser, 'student', async (page) => {
       const labId = await signIn(page, 'student');
       await page.goto(`/labs/${labId}/groups`);
@@ -28,11 +28,16 @@ describe('the student', () => {
       await page.getByRole('option', { name: /Core TR-2, my import/ }).click();
       await dialog.getByRole('button', { name: 'Copy', exact: true }).click();
       await page.waitForURL((url) => !url.pathname.endsWith(labId));
-      await card(page, 'Assign').waitFor();
-      expect(
-        await card(page, 'Group check')
-          .getByRole('button', { name: /group check/i })
-          .isDisabled(),
-      ).toBe(true);
+      const check = card(page, 'Group check');
+      await check.getByRole('button', { name: /^Run group check/ }).click();
+      await cardStatus(check, 'Current');
+      expect(await check.getByRole('button', { name: 'Exclude member' }).count()).toBe(0);
+
+      const assign = card(page, 'Assign');
+      await assign.getByRole('button', { name: 'Assign the unknowns' }).click();
+      await cardStatus(assign, 'Current');
+      const table = assign.getByRole('table', { name: 'Assignments of the unknowns' });
+      await table.getByRole('row', { name: /TR2-001/ }).waitFor(RUN_WAIT);
+      await expect.poll(() => assign.getByText('Evidence, not proof').count()).toBeGreaterThan(0);
     }));
 });

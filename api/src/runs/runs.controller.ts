@@ -27,7 +27,7 @@ export class RunsController {
     private readonly relay: RunEventsRelay,
   ) {}
 
-  /** Starts a run; the role check per kind is in the service (students may assign, not check groups). */
+  /** Starts a run; the role check per kind is in the service. */
   @Roles('pi', 'analyst', 'student')
   @Post()
   create(

@@ -20,10 +20,13 @@ import { RunEntity } from './run.entity';
 import { toRun } from './run.mapper';
 import { writeRunInputs } from './run-inputs.writer';
 
-/** Who may start which kind of run; students assign, analysts and PIs also check groups. */
+/**
+ * Who may start which kind of run. A group check only computes and changes no group, so a student may
+ * run one before assigning; excluding members (vetting the groups) stays with analysts and PIs.
+ */
 const STARTERS: Record<CreateRunRequest['kind'], readonly LabRole[]> = {
   classify: ['pi', 'analyst', 'student'],
-  'group-check': ['pi', 'analyst'],
+  'group-check': ['pi', 'analyst', 'student'],
 };
 
 const LIST_LIMIT = 100;

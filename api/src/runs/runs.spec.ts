@@ -112,9 +112,10 @@ describe('runs over HTTP with embedded workers (real PostgreSQL and Redis)', () 
     await members.pi.agent.post(`${runs()}/${runId}/cancel`).expect(409);
   });
 
-  it('lets students assign but not check groups, guests only read, and validates the inputs', async () => {
-    const check = { ...classifyRequest(1), kind: 'group-check' };
-    await members.student.agent.post(runs()).send(check).expect(403);
+  it('lets students assign and check groups, guests only read, and validates the inputs', async () => {
+    const { reference, parameters } = classifyRequest(1);
+    await members.student.agent.post(runs()).send({ kind: 'group-check', parameters, reference }).expect(201);
+    await members.guest.agent.post(runs()).send({ kind: 'group-check', parameters, reference }).expect(403);
     await members.guest.agent.post(runs()).send(classifyRequest(1)).expect(403);
     const bad = classifyRequest(2);
     bad.unknowns[1].values = [1, 2];

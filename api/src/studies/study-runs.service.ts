@@ -13,6 +13,7 @@ import {
 } from '@provenote/shared';
 import { AuditService } from '../audit/audit.service';
 import type { AuthUser, LabMembership } from '../auth/auth.types';
+import { GroupsService } from '../groups/groups.service';
 import { RunsService } from '../runs/runs.service';
 import { referenceSamples, unknownSamples } from './run-inputs';
 import { assertMayEdit } from './study-access';
@@ -34,6 +35,7 @@ export class StudyRunsService {
     @InjectDataSource() private readonly dataSource: DataSource,
     private readonly studies: StudiesService,
     private readonly audit: AuditService,
+    private readonly groups: GroupsService,
     private readonly moduleRef: ModuleRef,
   ) {}
 
@@ -70,14 +72,15 @@ export class StudyRunsService {
       seed: prepare.seed,
     };
     const manager = this.dataSource.manager;
-    const reference = await referenceSamples(
-      manager,
-      labId,
-      data,
-      prepare,
-      settingsOf(steps, 'groups'),
-      settingsOf(steps, 'check'),
-    );
+    const groups = settingsOf(steps, 'groups');
+    // A student's run must rest on vetted groups, also in a study copied from an analyst's.
+    if (membership.role === 'student') {
+      await this.groups.assertUsable(manager, labId, groups.groupVersionIds, {
+        approvedOnly: true,
+        datasetVersionId: null,
+      });
+    }
+    const reference = await referenceSamples(manager, labId, data, prepare, groups, settingsOf(steps, 'check'));
     const request: CreateRunRequest =
       kind === 'classify'
         ? { kind, studyId, parameters, reference, unknowns: await unknownSamples(manager, labId, data, prepare) }

@@ -25,7 +25,7 @@ function syntheticCsv(kind: 'reference' | 'unknowns', seed: number): { csv: stri
 describe('running the notebook cards on the queue (HTTP, PostgreSQL, Redis)', () => {
   let testApp: TestApp;
   let labId: string;
-  let members: Record<'pi' | 'analyst', SignedInMember>;
+  let members: Record<'pi' | 'analyst' | 'student', SignedInMember>;
   const base = () => `/api/labs/${labId}`;
 
   async function importCsv(agent: Agent, name: string, kind: 'reference' | 'unknowns', csv: string) {
@@ -39,46 +39,53 @@ describe('running the notebook cards on the queue (HTTP, PostgreSQL, Redis)', ()
     return { versionId: res.body.versions[0].id as string, datasetId: res.body.id as string };
   }
 
+  const prepare = {
+    elements: ['Zr', 'Nb', 'La'],
+    transform: 'ln',
+    alrDenominator: null,
+    belowDetection: 'dl-half',
+    covariance: 'classic',
+    seed: 3,
+  };
+
+  /**
+   * Imports the synthetic files, builds the three groups (as the analyst) and a study whose owner fills it;
+   * a prefix keeps the group names of several studies in one lab apart.
+   */
+  async function studyWithGroups(owner: Agent, analyst: Agent, prefix = '') {
+    const reference = syntheticCsv('reference', 20250501);
+    const referenceData = await importCsv(analyst, `${prefix}reference.csv`, 'reference', reference.csv);
+    const referenceVersionId = referenceData.versionId;
+    const unknownsVersionId = (
+      await importCsv(owner, `${prefix}unknowns.csv`, 'unknowns', syntheticCsv('unknowns', 7).csv)
+    ).versionId;
+    const groups: { id: string; versionId: string }[] = [];
+    for (const [name, memberIds] of Object.entries(reference.groups)) {
+      const res = await analyst
+        .post(`${base()}/groups`)
+        .send({ name: `${prefix}${name}`, datasetVersionId: referenceVersionId, memberIds })
+        .expect(201);
+      groups.push({ id: res.body.id, versionId: res.body.versions[0].id });
+    }
+    const groupVersionIds = groups.map((g) => g.versionId);
+    const study: Study = (await owner.post(`${base()}/studies`).send({ name: 'Synthetic core' }).expect(201)).body;
+    const steps = `${base()}/studies/${study.id}/steps`;
+    await owner.put(`${steps}/data`).send({ parameters: { referenceVersionId, unknownsVersionId } }).expect(200);
+    await owner.put(`${steps}/prepare`).send({ parameters: prepare }).expect(200);
+    // Analysts may choose groups not yet approved, also in a student's study.
+    await analyst.put(`${steps}/groups`).send({ parameters: { groupVersionIds } }).expect(200);
+    return { reference, referenceData, groups, steps, study };
+  }
+
   beforeAll(async () => {
     testApp = await createTestApp();
-    ({ labId, members } = await createLabWithMembers(testApp, ['pi', 'analyst'] as const));
+    ({ labId, members } = await createLabWithMembers(testApp, ['pi', 'analyst', 'student'] as const));
   });
   afterAll(() => testApp.close());
 
   it('checks the groups, assigns the unknowns, opens Review, and lets the PI sign off', async () => {
     const agent = members.analyst.agent;
-    const reference = syntheticCsv('reference', 20250501);
-    const referenceData = await importCsv(agent, 'reference.csv', 'reference', reference.csv);
-    const referenceVersionId = referenceData.versionId;
-    const unknownsVersionId = (await importCsv(agent, 'unknowns.csv', 'unknowns', syntheticCsv('unknowns', 7).csv))
-      .versionId;
-    const groupVersionIds: string[] = [];
-    for (const [name, memberIds] of Object.entries(reference.groups)) {
-      const res = await agent
-        .post(`${base()}/groups`)
-        .send({ name, datasetVersionId: referenceVersionId, memberIds })
-        .expect(201);
-      groupVersionIds.push(res.body.versions[0].id);
-    }
-
-    const study: Study = (await agent.post(`${base()}/studies`).send({ name: 'Synthetic core' }).expect(201)).body;
-    const steps = `${base()}/studies/${study.id}/steps`;
-    await agent.put(`${steps}/data`).send({ parameters: { referenceVersionId, unknownsVersionId } }).expect(200);
-    await agent
-      .put(`${steps}/prepare`)
-      .send({
-        parameters: {
-          elements: ['Zr', 'Nb', 'La'],
-          transform: 'ln',
-          alrDenominator: null,
-          belowDetection: 'dl-half',
-          covariance: 'classic',
-          seed: 3,
-        },
-      })
-      .expect(200);
-    await agent.put(`${steps}/groups`).send({ parameters: { groupVersionIds } }).expect(200);
-
+    const { reference, referenceData, steps, study } = await studyWithGroups(agent, agent);
     const sizes = await agent.get(`${base()}/studies/${study.id}/group-sizes`).expect(200);
     expect(sizes.body.groups.map((g: { n: number; p: number }) => [g.n, g.p])).toEqual([
       [14, 3],
@@ -169,5 +176,28 @@ describe('running the notebook cards on the queue (HTTP, PostgreSQL, Redis)', ()
     await agent.post(overrides).send({ sampleId: 'UN1', verdict: 'unassigned', group: null, reason }).expect(409);
     const deletion = await members.pi.agent.delete(`${base()}/datasets/${referenceData.datasetId}`).expect(409);
     expect(deletion.body.errors[0].message).toBe('study "Synthetic core", signed off, uses this data');
+  });
+
+  it('lets a student check and assign against approved groups only, without excluding members', async () => {
+    const student = members.student.agent;
+    const { groups, steps, study } = await studyWithGroups(student, members.analyst.agent, 'student-');
+    const refused = await student.post(`${steps}/check/run`).expect(403);
+    expect(refused.body.message).toMatch(/not approved yet; students may use approved versions only/);
+    for (const group of groups) {
+      await members.analyst.agent.post(`${base()}/groups/${group.id}/versions/${group.versionId}/approve`).expect(201);
+    }
+    const checking: Study = (await student.post(`${steps}/check/run`).expect(201)).body;
+    await waitForRun(testApp, checking.steps.find((s) => s.key === 'check')!.runId!, (r) => r.status === 'succeeded');
+    await student
+      .put(`${steps}/check`)
+      .send({ parameters: { exclusions: [] } })
+      .expect(403);
+    const assigning: Study = (await student.post(`${steps}/assign/run`).expect(201)).body;
+    const assignRun = assigning.steps.find((s) => s.key === 'assign')!.runId!;
+    await waitForRun(testApp, assignRun, (r) => r.status === 'succeeded');
+    const page = await student.get(`${base()}/runs/${assignRun}/assignments`).expect(200);
+    expect(page.body.total).toBe(9);
+    const done: Study = (await student.get(`${base()}/studies/${study.id}`).expect(200)).body;
+    expect(done.status).toBe('ready_for_review');
   });
 });

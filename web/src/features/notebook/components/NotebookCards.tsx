@@ -33,6 +33,12 @@ export function NotebookCards(props: Props) {
   const analyst = role === 'pi' || role === 'analyst';
   const groups = useGroupList(labId);
   const chosen = stepParameters<StepParameters['groups']>(study, 'groups')?.groupVersionIds ?? [];
+  const chosenVersions = (groups.data?.groups ?? []).flatMap((g) => g.versions.filter((v) => chosen.includes(v.id)));
+  // Students run the check (it computes, changes no group) once every chosen group is vetted.
+  const checkRefusal =
+    analyst || (groups.isSuccess && chosenVersions.every((v) => v.approvedAt !== null))
+      ? null
+      : 'Students run the group check once an analyst or PI has approved every chosen group.';
   const memberOptions = (groups.data?.groups ?? []).flatMap((g) =>
     g.versions
       .filter((v) => chosen.includes(v.id))
@@ -76,7 +82,13 @@ export function NotebookCards(props: Props) {
             {step.key === 'prepare' && <PrepareCard {...card} />}
             {step.key === 'groups' && <GroupsCard {...card} />}
             {step.key === 'check' && (
-              <CheckCard {...card} {...runProps} mayExclude={analyst} memberOptions={memberOptions} />
+              <CheckCard
+                {...card}
+                {...runProps}
+                mayExclude={analyst}
+                runRefusal={checkRefusal}
+                memberOptions={memberOptions}
+              />
             )}
             {step.key === 'assign' && <AssignCard {...card} {...runProps} canOverride={analyst && !locked} />}
             {step.key === 'review' && (

@@ -5,8 +5,10 @@ import { CheckResults } from '../CheckResults';
 import type { CardProps } from './card-props';
 
 interface Props extends CardProps {
-  /** Analysts and PIs vet the groups; others read the card. */
+  /** Analysts and PIs vet the groups: only they exclude members. */
   mayExclude: boolean;
+  /** Why this person may not run the check (a student, before every chosen group is approved), or null. */
+  runRefusal: string | null;
   onRun: () => void;
   running: boolean;
   runBlocked: boolean;
@@ -23,6 +25,7 @@ export function CheckCard({
   saving,
   errors,
   mayExclude,
+  runRefusal,
   onRun,
   running,
   runBlocked,
@@ -39,10 +42,15 @@ export function CheckCard({
     <Stack gap="sm">
       {!readOnly && (
         <Group>
-          <Button onClick={onRun} loading={running} disabled={runBlocked || !mayExclude}>
+          <Button onClick={onRun} loading={running} disabled={runBlocked || runRefusal !== null}>
             {step.status === 'not_run' ? 'Run group check' : 'Run group check again'}
           </Button>
-          {!mayExclude && <Text size="sm">Analysts and PIs run the group check.</Text>}
+          {runRefusal && <Text size="sm">{runRefusal}</Text>}
+          {!runRefusal && !mayExclude && (
+            <Text size="sm" c="dimmed">
+              The check only computes; analysts and PIs exclude members.
+            </Text>
+          )}
         </Group>
       )}
       {step.runId && (step.status === 'current' || step.status === 'stale') && (
