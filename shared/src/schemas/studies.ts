@@ -219,6 +219,7 @@ export const groupSizesSchema = z.object({
       status: z.enum(['ok', 'warning', 'error']),
       messages: z.array(z.string()),
       chiSquareFalseRejectionRate: z.number().nullable(),
+      chiSquareOverRejects: z.boolean(),
     }),
   ),
 });

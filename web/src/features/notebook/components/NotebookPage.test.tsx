@@ -8,6 +8,7 @@ import {
   elementSummary,
   groupSizes,
   LAB,
+  REFERENCE_VERSION,
   referenceDataset,
   STUDY,
   study,
@@ -84,7 +85,7 @@ describe('NotebookPage', () => {
     ).toBeInTheDocument();
     expect(await within(card(/Assign/)).findByText('U7')).toBeInTheDocument();
     expect(within(card(/Assign/)).getByText(/statistical evidence, not proof of origin/)).toBeInTheDocument();
-    expect(await within(card(/Assign/)).findByText(/North ridge has few members/)).toBeInTheDocument();
+    expect(await within(card(/Assign/)).findByText(/North ridge has few members for 1 variables/)).toBeInTheDocument();
     await userEvent.click(within(card(/Assign/)).getByRole('button', { name: 'Details of U7' }));
     expect(await screen.findByRole('table', { name: 'Contributions to D² per element' })).toBeInTheDocument();
   });
@@ -135,6 +136,59 @@ describe('NotebookPage', () => {
       }),
     );
     expect(await screen.findByText('Choose at least two elements')).toBeInTheDocument();
+  });
+
+  it('lets a student run the group check once every chosen group is approved, but not exclude members', async () => {
+    const VERSION = '77777777-7777-4777-8777-777777777777';
+    const withGroup = {
+      ...current,
+      steps: current.steps.map((s) => (s.key === 'groups' ? { ...s, parameters: { groupVersionIds: [VERSION] } } : s)),
+    };
+    const version = (approvedAt: string | null) => ({
+      groups: [
+        {
+          id: '88888888-8888-4888-8888-888888888888',
+          labId: LAB,
+          name: 'North ridge',
+          description: '',
+          createdAt: current.createdAt,
+          versions: [
+            {
+              id: VERSION,
+              groupId: '88888888-8888-4888-8888-888888888888',
+              number: 1,
+              datasetVersionId: REFERENCE_VERSION,
+              source: 'column',
+              memberIds: ['N1', 'N2'],
+              note: '',
+              createdAt: current.createdAt,
+              createdBy: 'Ada Analyst',
+              approvedAt,
+              approvedBy: approvedAt && 'Pat PI',
+            },
+          ],
+        },
+      ],
+    });
+    const run = (approvedAt: string | null) =>
+      answers('student', {
+        [`GET ${base}/studies/${STUDY}`]: () => ({ body: withGroup }),
+        [`GET ${base}/groups`]: () => ({ body: version(approvedAt) }),
+      });
+
+    run(null);
+    const first = renderRoutes(routes, `/labs/${LAB}/studies/${STUDY}`);
+    await screen.findByRole('heading', { name: 'Synthetic reservoir core' });
+    expect(await within(card(/Group check/)).findByText(/once an analyst or PI has approved/)).toBeInTheDocument();
+    expect(within(card(/Group check/)).getByRole('button', { name: 'Run group check again' })).toBeDisabled();
+    first.unmount();
+
+    run(current.createdAt);
+    renderRoutes(routes, `/labs/${LAB}/studies/${STUDY}`);
+    await screen.findByRole('heading', { name: 'Synthetic reservoir core' });
+    expect(await within(card(/Group check/)).findByText(/analysts and PIs exclude members/)).toBeInTheDocument();
+    expect(within(card(/Group check/)).getByRole('button', { name: 'Run group check again' })).toBeEnabled();
+    expect(within(card(/Group check/)).queryByRole('button', { name: 'Exclude member' })).not.toBeInTheDocument();
   });
 
   it('offers guests no changes and a signed-off study none to anyone', async () => {

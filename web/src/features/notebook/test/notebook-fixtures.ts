@@ -101,6 +101,7 @@ export const groupSizes = {
       status: 'warning',
       messages: ['n = 4 is below 5·p = 5'],
       chiSquareFalseRejectionRate: 0.1234,
+      chiSquareOverRejects: true,
     },
   ],
 };

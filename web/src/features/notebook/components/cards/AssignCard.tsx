@@ -1,9 +1,10 @@
-import { Alert, Button, Group, NumberInput, SegmentedControl, Stack, Text } from '@mantine/core';
+import { Button, Group, NumberInput, SegmentedControl, Stack, Text } from '@mantine/core';
 import { useState } from 'react';
 import type { StepParameters } from '@provenote/shared/schemas';
 import { useGroupSizes } from '../../api/group-sizes';
 import { AssignmentsTable } from '../AssignmentsTable';
 import { EvidenceCaution } from '../EvidenceCaution';
+import { GroupSizeAlerts } from '../GroupSizeAlerts';
 import { stepParameters, type CardProps } from './card-props';
 
 interface Props extends CardProps {
@@ -30,7 +31,6 @@ export function AssignCard({
   const saved = step.parameters as StepParameters['assign'] | null;
   const [values, setValues] = useState<StepParameters['assign']>(saved ?? { probability: 'hotelling', alpha: 0.05 });
   const sizes = useGroupSizes(labId, study.id, study.updatedAt, step.runId !== null);
-  const smallGroups = (sizes.data?.groups ?? []).filter((g) => g.status !== 'ok').map((g) => g.group);
   const changed = saved?.probability !== values.probability || saved?.alpha !== values.alpha;
   return (
     <Stack gap="sm">
@@ -79,12 +79,7 @@ export function AssignCard({
       {step.runId && (step.status === 'current' || step.status === 'stale') && (
         <>
           <EvidenceCaution />
-          {smallGroups.length > 0 && (
-            <Alert color="orange" variant="light" title="Small groups">
-              {smallGroups.join(', ')} {smallGroups.length === 1 ? 'has' : 'have'} few members for the number of
-              elements; their probabilities are less steady than α suggests (see the Reference groups card).
-            </Alert>
-          )}
+          {sizes.data && <GroupSizeAlerts sizes={sizes.data} basis={saved?.probability ?? 'hotelling'} />}
           <AssignmentsTable
             labId={labId}
             studyId={study.id}

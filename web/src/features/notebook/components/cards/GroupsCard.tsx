@@ -1,8 +1,9 @@
-import { Alert, Button, Group, List, MultiSelect, Stack, Table, Text } from '@mantine/core';
+import { Button, Group, MultiSelect, Stack, Table, Text } from '@mantine/core';
 import { useState } from 'react';
 import type { StepParameters } from '@provenote/shared/schemas';
 import { useGroupList } from '../../../groups/api/groups';
 import { useGroupSizes } from '../../api/group-sizes';
+import { GroupSizeAlerts } from '../GroupSizeAlerts';
 import { stepParameters, type CardProps } from './card-props';
 
 export function GroupsCard({ labId, study, step, readOnly, onSave, saving, errors }: CardProps) {
@@ -71,22 +72,11 @@ export function GroupsCard({ labId, study, step, readOnly, onSave, saving, error
           </Table.Tbody>
         </Table>
       )}
-      {sizes.data?.groups.some((g) => g.status !== 'ok') && (
-        <Alert color="orange" title="Small groups">
-          <Text size="sm">
-            A group with few members for the number of elements gives unsteady distances: true members look like
-            outsiders more often than α says. Use fewer elements, add members, or judge on the Hotelling basis.
-          </Text>
-          <List size="sm">
-            {sizes.data.groups
-              .filter((g) => g.status !== 'ok')
-              .map((g) => (
-                <List.Item key={g.group}>
-                  {g.group}: {g.messages.join('; ')}
-                </List.Item>
-              ))}
-          </List>
-        </Alert>
+      {sizes.data && (
+        <GroupSizeAlerts
+          sizes={sizes.data}
+          basis={stepParameters<StepParameters['assign']>(study, 'assign')?.probability ?? 'hotelling'}
+        />
       )}
     </Stack>
   );
