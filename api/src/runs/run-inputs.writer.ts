@@ -1,11 +1,28 @@
 import type { EntityManager } from 'typeorm';
-import type { RunSample } from '@provenote/shared';
+import { cellFlags, type CreateRunRequest, type RunSample } from '@provenote/shared';
 import { rowSlices } from './insert-assignments';
+
+/** Samples of a stored dataset version, copied into the run's snapshot inside PostgreSQL. */
+export interface DatasetRowsSource {
+  versionId: string;
+  /** Positions (from 0) in the version's measurement columns, in the run's element order. */
+  columns: number[];
+}
+
+/**
+ * A classify run started from a study: its unknowns, possibly a hundred thousand, never pass through
+ * the api process; the caller has already checked that every chosen cell holds a number.
+ */
+export type ClassifyFromDataset = Omit<Extract<CreateRunRequest, { kind: 'classify' }>, 'unknowns'> & {
+  unknowns: DatasetRowsSource;
+};
+export type RunStart = CreateRunRequest | ClassifyFromDataset;
+
+const BELOW_DL = cellFlags.indexOf('below_dl');
 
 /**
  * Stores one role's samples as the run's input snapshot, a slice of rows per statement, each column as
- * one array (values flat, cut per row by slicing). Datasets can later fill run_inputs the same way
- * straight from their own tables with INSERT … SELECT.
+ * one array (values flat, cut per row by slicing).
  */
 export async function writeRunInputs(
   manager: EntityManager,
@@ -35,4 +52,49 @@ export async function writeRunInputs(
       ],
     );
   }
+}
+
+/**
+ * Copies every row of a dataset version, in file order, into the snapshot as unknowns with one
+ * INSERT … SELECT: the chosen cells become the values in element order and a below-detection flag
+ * marks a value that is the stated limit. Returns how many samples were copied.
+ */
+export async function copyUnknownsFromDataset(
+  manager: EntityManager,
+  runId: string,
+  source: DatasetRowsSource,
+): Promise<number> {
+  // The subscripts are written into the statement (one ARRAY[…] per row, no per-row subquery), so they
+  // must be plain non-negative integers.
+  const subscripts = source.columns.map((column) => {
+    if (!Number.isSafeInteger(column) || column < 0) throw new Error(`${column} is not a column position`);
+    return column + 1;
+  });
+  if (subscripts.length === 0) throw new Error('a run needs at least one element');
+  const rows: { copied: number }[] = await manager.query(
+    `WITH copied AS (
+       INSERT INTO run_inputs (run_id, role, ordinal, sample_id, group_label, values, below_detection)
+       SELECT $1, 'unknown', (row_number() OVER (ORDER BY r.position) - 1)::int, r.sample_id, NULL,
+         ARRAY[${subscripts.map((i) => `r.ppm[${i}]`).join(', ')}]::float8[],
+         ARRAY[${subscripts.map((i) => `r.flags[${i}] = ${BELOW_DL}`).join(', ')}]
+       FROM dataset_rows r WHERE r.version_id = $2
+       RETURNING 1)
+     SELECT count(*)::int AS copied FROM copied`,
+    [runId, source.versionId],
+  );
+  return rows[0].copied;
+}
+
+/** The whole snapshot of a run: the reference always inline, the unknowns inline or from a dataset version. */
+export async function writeAllRunInputs(manager: EntityManager, runId: string, request: RunStart): Promise<void> {
+  const p = request.parameters.elements.length;
+  await writeRunInputs(manager, runId, 'reference', request.reference, p);
+  if (request.kind !== 'classify') return;
+  if (Array.isArray(request.unknowns)) {
+    await writeRunInputs(manager, runId, 'unknown', request.unknowns, p);
+    return;
+  }
+  if (request.unknowns.columns.length !== p) throw new Error(`the unknowns need ${p} columns, one per element`);
+  const copied = await copyUnknownsFromDataset(manager, runId, request.unknowns);
+  if (copied === 0) throw new Error(`dataset version ${request.unknowns.versionId} has no rows to copy`);
 }

@@ -18,7 +18,7 @@ import { REDIS } from '../redis/redis.module';
 import { PgRunStore } from './pg-run-store';
 import { RunEntity } from './run.entity';
 import { toRun } from './run.mapper';
-import { writeRunInputs } from './run-inputs.writer';
+import { type RunStart, writeAllRunInputs } from './run-inputs.writer';
 
 /**
  * Who may start which kind of run. A group check only computes and changes no group, so a student may
@@ -44,14 +44,13 @@ export class RunsService {
   ) {}
 
   /** Stores the run and its input snapshot in one transaction, then puts it on the queue. */
-  async create(labId: string, userId: string, role: LabRole, request: CreateRunRequest): Promise<Run> {
+  async create(labId: string, userId: string, role: LabRole, request: RunStart): Promise<Run> {
     if (!STARTERS[request.kind].includes(role)) {
       throw new ForbiddenException(`Your role in this lab (${role}) may not start a ${request.kind} run`);
     }
     const { parameters } = request;
     // A robust fit draws random subsets: a seed is chosen now and kept, so the run can be repeated.
     const seed = parameters.seed ?? (parameters.covariance === 'mcd' ? randomInt(2 ** 31 - 1) : null);
-    const p = parameters.elements.length;
     const runId = await this.dataSource.transaction(async (manager) => {
       const run = await manager.save(
         manager.create(RunEntity, {
@@ -63,8 +62,7 @@ export class RunsService {
           createdBy: userId,
         }),
       );
-      await writeRunInputs(manager, run.id, 'reference', request.reference, p);
-      if (request.kind === 'classify') await writeRunInputs(manager, run.id, 'unknown', request.unknowns, p);
+      await writeAllRunInputs(manager, run.id, request);
       return run.id;
     });
     try {

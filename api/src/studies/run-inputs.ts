@@ -3,6 +3,7 @@ import type { EntityManager } from 'typeorm';
 import { cellFlags, type RunSample, type StepParameters } from '@provenote/shared';
 import { DatasetVersion } from '../datasets/dataset-version.entity';
 import { GroupVersionEntity } from '../groups/group-version.entity';
+import type { DatasetRowsSource } from '../runs/run-inputs.writer';
 
 const MAX_LISTED = 5;
 
@@ -55,10 +56,10 @@ function toRunSample(
   return { sampleId: row.sample_id, values, belowDetection };
 }
 
-function refuseProblems(problems: string[], what: string) {
-  if (problems.length === 0) return;
+function refuseProblems(problems: string[], what: string, total = problems.length) {
+  if (total === 0) return;
   const listed = problems.slice(0, MAX_LISTED).join('; ');
-  const more = problems.length > MAX_LISTED ? ` and ${problems.length - MAX_LISTED} more` : '';
+  const more = total > MAX_LISTED ? ` and ${total - MAX_LISTED} more` : '';
   throw new BadRequestException(
     `Some ${what} samples cannot be used with the chosen elements: ${listed}${more}. Choose other elements or exclude the samples.`,
   );
@@ -115,20 +116,40 @@ export async function referenceSamples(
   return samples;
 }
 
-/** Every sample of the unknowns version, in file order. */
-export async function unknownSamples(
+interface UnusableRow {
+  sample_id: string;
+  k: number;
+  flag: number;
+  total: number;
+}
+
+/**
+ * The unknowns version and its chosen columns, for the run to copy inside the database. Checked here
+ * as the in-memory path checks a sample: the first chosen cell without a finite number in each row is
+ * named (up to a few, with how many more), so nothing unusable reaches the snapshot.
+ */
+export async function unknownsSource(
   manager: EntityManager,
   labId: string,
   data: StepParameters['data'],
   prepare: StepParameters['prepare'],
-): Promise<RunSample[]> {
+): Promise<DatasetRowsSource> {
   if (!data.unknownsVersionId) throw new BadRequestException('Choose the unknowns on the Data card first');
   const version = await versionOf(manager, labId, data.unknownsVersionId, 'unknowns');
-  const indexes = elementIndexes(version, prepare.elements, 'unknowns');
-  const problems: string[] = [];
-  const samples = (await storedRows(manager, version.id, null))
-    .map((row) => toRunSample(row, indexes, prepare.elements, problems))
-    .filter((s): s is RunSample => s !== null);
-  refuseProblems(problems, 'unknown');
-  return samples;
+  const columns = elementIndexes(version, prepare.elements, 'unknowns');
+  const unusable: UnusableRow[] = await manager.query(
+    `SELECT sample_id, k, flag, count(*) OVER ()::int AS total FROM (
+       SELECT DISTINCT ON (r.position) r.position, r.sample_id, e.k::int AS k, r.flags[e.i] AS flag
+       FROM dataset_rows r CROSS JOIN unnest($2::int[]) WITH ORDINALITY AS e(i, k)
+       WHERE r.version_id = $1 AND (r.ppm[e.i] IS NULL OR r.ppm[e.i] IN ('NaN', 'Infinity', '-Infinity'))
+       ORDER BY r.position, e.k) AS m
+     ORDER BY position LIMIT $3`,
+    [version.id, columns.map((column) => column + 1), MAX_LISTED],
+  );
+  const problems = unusable.map(
+    (row) =>
+      `${row.sample_id} has no value for ${prepare.elements[row.k - 1]} (${(cellFlags[row.flag] ?? 'no flag').replace(/_/g, ' ')})`,
+  );
+  refuseProblems(problems, 'unknown', unusable[0]?.total ?? 0);
+  return { versionId: version.id, columns };
 }

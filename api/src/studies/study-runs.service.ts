@@ -14,8 +14,9 @@ import {
 import { AuditService } from '../audit/audit.service';
 import type { AuthUser, LabMembership } from '../auth/auth.types';
 import { GroupsService } from '../groups/groups.service';
+import type { RunStart } from '../runs/run-inputs.writer';
 import { RunsService } from '../runs/runs.service';
-import { referenceSamples, unknownSamples } from './run-inputs';
+import { referenceSamples, unknownsSource } from './run-inputs';
 import { assertMayEdit } from './study-access';
 import { StudyStepEntity } from './study-step.entity';
 import { StudiesService } from './studies.service';
@@ -81,9 +82,9 @@ export class StudyRunsService {
       });
     }
     const reference = await referenceSamples(manager, labId, data, prepare, groups, settingsOf(steps, 'check'));
-    const request: CreateRunRequest =
+    const request: RunStart =
       kind === 'classify'
-        ? { kind, studyId, parameters, reference, unknowns: await unknownSamples(manager, labId, data, prepare) }
+        ? { kind, studyId, parameters, reference, unknowns: await unknownsSource(manager, labId, data, prepare) }
         : { kind, studyId, parameters, reference };
     const run = await this.runs.create(labId, user.id, membership.role, request);
 
