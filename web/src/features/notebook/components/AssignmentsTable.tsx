@@ -9,6 +9,7 @@ import { errorMessage } from '../../../app/api-client';
 import { assignmentsQuery, useAssignments } from '../api/assignments';
 import { BivariatePlot } from '../../plots/components/BivariatePlot';
 import { ProbabilityHeatmap } from '../../plots/components/ProbabilityHeatmap';
+import { ProjectionPlot } from '../../plots/components/ProjectionPlot';
 import { AssignmentDrawer } from './AssignmentDrawer';
 
 const formatP = (p: number | null) => (p === null ? '—' : p < 0.001 ? p.toExponential(2) : p.toFixed(3));
@@ -93,7 +94,16 @@ export function AssignmentsTable({ labId, studyId, runId, canOverride, basis, el
           <Tabs.Tab value="table">Table</Tabs.Tab>
           <Tabs.Tab value="heatmap">Probability heat map</Tabs.Tab>
           <Tabs.Tab value="bivariate">Two elements</Tabs.Tab>
+          <Tabs.Tab value="projection">Projection</Tabs.Tab>
         </Tabs.List>
+        <Tabs.Panel value="projection" pt="xs">
+          <ProjectionPlot
+            labId={labId}
+            runId={runId}
+            groupOrder={data?.groups.map((g) => g.name) ?? []}
+            onOpenUnknown={openSample}
+          />
+        </Tabs.Panel>
         <Tabs.Panel value="bivariate" pt="xs">
           <BivariatePlot
             labId={labId}

@@ -1,0 +1,71 @@
+import type { Projection } from '@provenote/shared/schemas';
+import { groupStyle, verdictStyles } from './palette';
+
+/** "PC1 (72.4 %)": the axis and the share of the variance (or of the between-group trace) it carries. */
+export const axisTitle = (axis: Projection['axes'][number]) => `${axis.label} (${(axis.share * 100).toFixed(1)} %)`;
+
+/**
+ * Plotly traces of a stored projection: each group's reference samples in its colour and shape with its
+ * ellipse outline in the same colour, then the unknowns by verdict as open markers. Scores and outlines
+ * are drawn as the API sent them; nothing is computed here.
+ */
+export function projectionTraces(data: Projection, groupOrder: string[]) {
+  const groups = [...new Set([...groupOrder, ...data.groups.map((g) => g.name)])];
+  const styleOf = (group: string) => groupStyle(groups.indexOf(group));
+  const [a, b] = data.axes.map((axis) => axis.label);
+  const markers = (name: string, points: { x: number; y: number; sampleId: string }[]) => ({
+    type: 'scatter' as const,
+    mode: 'markers' as const,
+    name,
+    x: points.map((p) => p.x),
+    y: points.map((p) => p.y),
+    customdata: points.map((p) => p.sampleId),
+    hovertemplate: `Sample %{customdata}<br>${a} %{x:.3f}<br>${b} %{y:.3f}<extra>%{fullData.name}</extra>`,
+  });
+  const perGroup = data.groups.flatMap((group) => {
+    const style = styleOf(group.name);
+    const points = data.reference.filter((p) => p.group === group.name);
+    const outline = group.ellipse
+      ? [
+          {
+            type: 'scatter' as const,
+            mode: 'lines' as const,
+            name: `${group.name}, ${Math.round(data.level * 100)} % ellipse`,
+            x: group.ellipse.x,
+            y: group.ellipse.y,
+            line: { color: style.colour, width: 1.5 },
+            hoverinfo: 'skip' as const,
+          },
+        ]
+      : [];
+    return [
+      { ...markers(group.name, points), marker: { color: style.colour, symbol: style.symbol, size: 8, opacity: 0.75 } },
+      ...outline,
+    ];
+  });
+  const assigned = groups
+    .map((group) => ({ group, points: data.unknowns.filter((u) => u.verdict === 'assigned' && u.group === group) }))
+    .filter(({ points }) => points.length > 0)
+    .map(({ group, points }) => ({
+      ...markers(`Unknown, assigned to ${group}`, points),
+      marker: {
+        color: styleOf(group).colour,
+        symbol: `${styleOf(group).symbol}${verdictStyles.assigned.symbolSuffix}`,
+        size: 11,
+        line: { width: 2 },
+      },
+    }));
+  const others = (['ambiguous', 'unassigned'] as const)
+    .map((verdict) => ({ verdict, points: data.unknowns.filter((u) => u.verdict === verdict) }))
+    .filter(({ points }) => points.length > 0)
+    .map(({ verdict, points }) => ({
+      ...markers(`Unknown, ${verdictStyles[verdict].label.toLowerCase()}`, points),
+      marker: {
+        color: verdictStyles[verdict].colour,
+        symbol: verdictStyles[verdict].symbol,
+        size: 11,
+        line: { width: 2 },
+      },
+    }));
+  return [...perGroup, ...assigned, ...others];
+}
