@@ -1,4 +1,4 @@
-import { Global, Inject, Module, type OnApplicationShutdown } from '@nestjs/common';
+import { type BeforeApplicationShutdown, Global, Inject, Module } from '@nestjs/common';
 import { createRunQueue, type RunQueue } from '@provenote/workers';
 import { APP_CONFIG } from '../config/config.module';
 import type { AppConfig } from '../config/config';
@@ -21,11 +21,15 @@ export const QUEUE_PREFIX = Symbol('QUEUE_PREFIX');
   ],
   exports: [RUN_QUEUE, QUEUE_PREFIX],
 })
-export class QueueModule implements OnApplicationShutdown {
+export class QueueModule implements BeforeApplicationShutdown {
   constructor(@Inject(RUN_QUEUE) private readonly queue: RunQueue) {}
 
-  /** Waits for the jobs this process is running to finish; the others stay queued for the next worker. */
-  async onApplicationShutdown() {
+  /**
+   * Waits for the jobs this process is running to finish; the others stay queued for the next worker.
+   * Before the shutdown phase, in which the database, Redis and mail connections close: a job still
+   * running then could neither save its results nor hand itself back.
+   */
+  async beforeApplicationShutdown() {
     await this.queue.close();
   }
 }
