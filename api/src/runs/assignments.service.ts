@@ -1,7 +1,7 @@
 import { Injectable } from '@nestjs/common';
 import { InjectDataSource } from '@nestjs/typeorm';
 import { DataSource } from 'typeorm';
-import { RESULTS_PAGE_SIZE, type AssignmentsPage, type AssignmentsQuery } from '@provenote/shared';
+import { type AssignmentsPage, type AssignmentsQuery } from '@provenote/shared';
 import { RunsService } from './runs.service';
 
 /** Sort keys of the query string → indexed columns (each index ends in ordinal, the tie-break). */
@@ -29,7 +29,7 @@ interface AssignmentRowSql {
 
 const escapeLike = (text: string) => text.replace(/[\\%_]/g, (c) => `\\${c}`);
 
-/** Pages of a classification run's results: 50 rows, sorted and filtered in the database. */
+/** Pages of a classification run's results, sorted and filtered in the database. */
 @Injectable()
 export class AssignmentsService {
   constructor(
@@ -50,13 +50,13 @@ export class AssignmentsService {
     // change the order, but it keeps PostgreSQL from reading the indexes in order, so it sorts every match.
     const nulls = sort !== 'runner_up_probability' ? '' : direction === 'DESC' ? ' NULLS LAST' : ' NULLS FIRST';
     const orderBy = sort === 'ordinal' ? `ordinal ${direction}` : `${sort} ${direction}${nulls}, ordinal ${direction}`;
-    const offset = (query.page - 1) * RESULTS_PAGE_SIZE;
+    const offset = (query.page - 1) * query.pageSize;
     const [rows, [{ total }], groups] = await Promise.all([
       this.dataSource.query(
         `SELECT sample_id, verdict, group_name, probability, runner_up, runner_up_probability, d2, p_chi2,
            p_hotelling, contributions
          FROM run_assignments WHERE ${where.join(' AND ')} ORDER BY ${orderBy}
-         LIMIT ${RESULTS_PAGE_SIZE} OFFSET ${offset}`,
+         LIMIT ${query.pageSize} OFFSET ${offset}`,
         values,
       ) as Promise<AssignmentRowSql[]>,
       this.dataSource.query(
@@ -71,7 +71,7 @@ export class AssignmentsService {
     return {
       total,
       page: query.page,
-      pageSize: RESULTS_PAGE_SIZE,
+      pageSize: query.pageSize,
       groups: groups.map((g) => ({ name: g.name, n: g.n, effectiveN: g.effective_n })),
       variables: groups[0]?.variables ?? [],
       rows: rows.map((row) => ({

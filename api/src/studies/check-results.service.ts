@@ -1,12 +1,7 @@
 import { Injectable, NotFoundException } from '@nestjs/common';
 import { InjectDataSource } from '@nestjs/typeorm';
 import { DataSource, type FindOptionsWhere } from 'typeorm';
-import {
-  CHECK_MEMBERS_PAGE_SIZE,
-  checkResultsSchema,
-  type CheckResults,
-  type CheckResultsQuery,
-} from '@provenote/shared';
+import { checkResultsSchema, type CheckResults, type CheckResultsQuery } from '@provenote/shared';
 import { RunCheckMemberEntity } from '../runs/run-check-member.entity';
 import { RunCheckPairEntity } from '../runs/run-check-pair.entity';
 import { RunGroupEntity } from '../runs/run-group.entity';
@@ -36,8 +31,8 @@ export class CheckResultsService {
     const [members, total] = await this.dataSource.getRepository(RunCheckMemberEntity).findAndCount({
       where,
       order: { ordinal: 'ASC' },
-      skip: (query.page - 1) * CHECK_MEMBERS_PAGE_SIZE,
-      take: CHECK_MEMBERS_PAGE_SIZE,
+      skip: (query.page - 1) * query.pageSize,
+      take: query.pageSize,
     });
     const groups = await this.dataSource
       .getRepository(RunGroupEntity)
@@ -59,7 +54,7 @@ export class CheckResultsService {
       members: {
         total,
         page: query.page,
-        pageSize: CHECK_MEMBERS_PAGE_SIZE,
+        pageSize: query.pageSize,
         rows: members.map((m) => ({
           sampleId: m.sampleId,
           group: m.groupName,

@@ -112,6 +112,10 @@ describe('running the notebook cards on the queue (HTTP, PostgreSQL, Redis)', ()
     const north = (await agent.get(`${base()}/studies/${study.id}/check-results?group=North`).expect(200)).body;
     expect(north.members.total).toBe(14);
     expect(new Set(north.members.rows.map((m: { group: string }) => m.group))).toEqual(new Set(['North']));
+    const short = (await agent.get(`${base()}/studies/${study.id}/check-results?page=3&pageSize=15`).expect(200)).body;
+    expect(short.members).toMatchObject({ total: 42, page: 3, pageSize: 15 });
+    expect(short.members.rows).toHaveLength(12);
+    await agent.get(`${base()}/studies/${study.id}/check-results?pageSize=201`).expect(400);
 
     const assigning: Study = (await agent.post(`${steps}/assign/run`).expect(201)).body;
     const assignRun = assigning.steps.find((s) => s.key === 'assign')!.runId!;
@@ -146,6 +150,11 @@ describe('running the notebook cards on the queue (HTTP, PostgreSQL, Redis)', ()
 
     const page = await agent.get(`${base()}/runs/${assignRun}/assignments`).expect(200);
     expect(page.body.total).toBe(9);
+    const second = await agent.get(`${base()}/runs/${assignRun}/assignments?page=2&pageSize=4`).expect(200);
+    expect(second.body).toMatchObject({ total: 9, page: 2, pageSize: 4 });
+    expect(second.body.rows.map((r: { sampleId: string }) => r.sampleId)).toEqual(
+      page.body.rows.slice(4, 8).map((r: { sampleId: string }) => r.sampleId),
+    );
     expect(page.body.groups.map((g: { name: string }) => g.name).sort()).toEqual(['East', 'North', 'South']);
 
     const overrides = `${base()}/studies/${study.id}/overrides`;

@@ -129,15 +129,17 @@ export const memberOutcomeLabels: Record<MemberOutcome, string> = {
   unassigned: 'Unassigned',
 };
 
+export const CHECK_MEMBERS_PAGE_SIZE = 50;
+
 /** GET /api/labs/:labId/studies/:studyId/check-results — query string. */
 export const checkResultsQuerySchema = z.object({
   page: z.coerce.number().int().min(1).default(1),
+  /** Members per page; the card asks for fewer, so a long page of the notebook does not grow longer. */
+  pageSize: z.coerce.number().int().min(1).max(200).default(CHECK_MEMBERS_PAGE_SIZE),
   outcome: memberOutcomeSchema.optional(),
   group: z.string().min(1).optional(),
 });
 export type CheckResultsQuery = z.infer<typeof checkResultsQuerySchema>;
-
-export const CHECK_MEMBERS_PAGE_SIZE = 50;
 
 /** The Group check card's results: per member, per pair of groups, per variable. */
 export const checkResultsSchema = z.object({

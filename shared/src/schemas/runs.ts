@@ -152,6 +152,8 @@ export const assignmentSortKeys = [
 /** GET /api/labs/:labId/runs/:runId/assignments — query string. */
 export const assignmentsQuerySchema = z.object({
   page: z.coerce.number().int().min(1).default(1),
+  /** Rows per page; the Assign card asks for fewer than the default, the heat map shows the same page. */
+  pageSize: z.coerce.number().int().min(1).max(200).default(RESULTS_PAGE_SIZE),
   sort: z.enum(assignmentSortKeys).default('input'),
   order: z.enum(['asc', 'desc']).default('asc'),
   verdict: assignmentVerdictSchema.optional(),

@@ -10,6 +10,7 @@ export const checkResultsQuery = (labId: string, studyId: string, runId: string,
     queryKey: ['labs', labId, 'studies', studyId, 'check-results', runId, filter],
     queryFn: ({ signal }) => {
       const params = new URLSearchParams({ page: String(filter.page) });
+      if (filter.pageSize) params.set('pageSize', String(filter.pageSize));
       if (filter.outcome) params.set('outcome', filter.outcome);
       if (filter.group) params.set('group', filter.group);
       return apiRequest(`/labs/${labId}/studies/${studyId}/check-results?${params}`, checkResultsSchema, { signal });

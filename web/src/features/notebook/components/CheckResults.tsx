@@ -12,14 +12,18 @@ import { errorMessage } from '../../../app/api-client';
 import { useCheckResults } from '../api/check-results';
 
 const fmtP = (p: number) => (p < 0.001 ? p.toExponential(2) : p.toFixed(3));
+/** Short pages keep the notebook readable; a reader who wants more asks for them. */
+const PAGE_SIZES = [15, 50, 100];
 
 /** Leave-one-out per member, the confusion table, the separation of each pair and the per-element screening. */
 export function CheckResults({ labId, studyId, runId }: { labId: string; studyId: string; runId: string }) {
   const [page, setPage] = useState(1);
+  const [pageSize, setPageSize] = useState(PAGE_SIZES[0]);
   const [outcome, setOutcome] = useState<MemberOutcome | null>(null);
   const [group, setGroup] = useState<string | null>(null);
   const results = useCheckResults(labId, studyId, runId, {
     page,
+    pageSize,
     outcome: outcome ?? undefined,
     group: group ?? undefined,
   });
@@ -65,6 +69,12 @@ export function CheckResults({ labId, studyId, runId }: { labId: string; studyId
         fetching={results.isFetching}
         totalRecords={data.members.total}
         recordsPerPage={data.members.pageSize}
+        recordsPerPageOptions={PAGE_SIZES}
+        recordsPerPageLabel="Members per page"
+        onRecordsPerPageChange={(size) => {
+          setPage(1);
+          setPageSize(size);
+        }}
         page={page}
         onPageChange={setPage}
         noRecordsText="No members match"
