@@ -26,9 +26,13 @@ interface Props {
   elements: string[];
 }
 
+/** Short pages keep the notebook readable; the heat map shows the same page, so more can be asked for. */
+const PAGE_SIZES = [20, 50, 100];
+
 export function AssignmentsTable({ labId, studyId, runId, canOverride, basis, elements }: Props) {
   const queryClient = useQueryClient();
   const [page, setPage] = useState(1);
+  const [pageSize, setPageSize] = useState(PAGE_SIZES[0]);
   const [verdict, setVerdict] = useState<string | null>(null);
   const [group, setGroup] = useState<string | null>(null);
   const [search, setSearch] = useState('');
@@ -40,6 +44,7 @@ export function AssignmentsTable({ labId, studyId, runId, canOverride, basis, el
   const [open, setOpen] = useState<AssignmentRow | null>(null);
   const results = useAssignments(labId, runId, {
     page,
+    pageSize,
     sort: sortable.has(String(sortStatus.columnAccessor))
       ? (sortStatus.columnAccessor as AssignmentsQuery['sort'])
       : 'input',
@@ -127,7 +132,13 @@ export function AssignmentsTable({ labId, studyId, runId, canOverride, basis, el
             records={data?.rows ?? []}
             fetching={results.isFetching}
             totalRecords={data?.total ?? 0}
-            recordsPerPage={data?.pageSize ?? 50}
+            recordsPerPage={data?.pageSize ?? pageSize}
+            recordsPerPageOptions={PAGE_SIZES}
+            recordsPerPageLabel="Unknowns per page"
+            onRecordsPerPageChange={(size) => {
+              setPage(1);
+              setPageSize(size);
+            }}
             page={page}
             onPageChange={setPage}
             sortStatus={sortStatus}
