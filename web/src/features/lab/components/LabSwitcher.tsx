@@ -11,16 +11,20 @@ export function LabSwitcher() {
   const memberships = me.data?.memberships ?? [];
   if (memberships.length === 0) return null;
   const current = labId ?? memberships[0].labId;
+  const options = memberships.map((m) => ({
+    value: m.labId,
+    label: `${m.labName} · ${labRoleDescriptions[m.role].label}`,
+  }));
   return (
     <Select
       aria-label="Lab"
-      w={300}
+      // Wide enough for a lab name of about fifty characters with the role at 1024 px; longer ones show in full on hover.
+      w={460}
+      title={options.find((o) => o.value === current)?.label}
+      comboboxProps={{ width: 'max-content' }}
       allowDeselect={false}
       value={current}
-      data={memberships.map((m) => ({
-        value: m.labId,
-        label: `${m.labName} · ${labRoleDescriptions[m.role].label}`,
-      }))}
+      data={options}
       onChange={(value) => value && value !== current && navigate(`/labs/${value}`)}
     />
   );

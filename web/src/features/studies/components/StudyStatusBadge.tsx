@@ -11,7 +11,8 @@ const colours: Record<StudyStatus, string> = {
 
 export function StudyStatusBadge({ status }: { status: StudyStatus }) {
   return (
-    <Badge color={colours[status]} variant="light">
+    // Never narrower than its words: a table column would otherwise squeeze it to "IN PROGRE…".
+    <Badge color={colours[status]} variant="light" miw="max-content">
       {studyStatusLabels[status]}
     </Badge>
   );
