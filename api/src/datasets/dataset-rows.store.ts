@@ -23,16 +23,23 @@ function textArray(values: (string | null)[]): string {
   return `{${values.map((value) => (value === null ? 'NULL' : `"${value.replace(/["\\]/g, '\\$&')}"`)).join(',')}}`;
 }
 
+function sameValues(a: (number | null)[], b: (number | null)[]): boolean {
+  return a.length === b.length && a.every((value, i) => Object.is(value, b[i]));
+}
+
 /** One dataset_rows line of COPY text, in the column order of ROW_COLUMNS. */
 export function copyLine(versionId: string, row: ImportedRow): string {
+  const ppm = numberArray(row.ppm);
+  // Most files are in ppm already: the original values then format to the same text, done once.
+  const original = sameValues(row.ppm, row.original) ? ppm : numberArray(row.original);
   return [
     versionId,
     String(row.position),
     String(row.sourceRow),
     copyField(row.sampleId),
     copyField(row.group),
-    numberArray(row.ppm),
-    numberArray(row.original),
+    ppm,
+    original,
     `{${row.flags.join(',')}}`,
     copyField(textArray(row.raw)),
     copyField(row.attributes ? JSON.stringify(row.attributes) : null),
