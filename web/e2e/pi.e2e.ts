@@ -14,9 +14,14 @@ describe('the PI', () => {
     journey(browser, 'pi-invite', async (page) => {
       const labId = await signIn(page, 'pi');
       await page.goto(`/labs/${labId}/members`);
-      await page.getByLabel('E-mail').fill('new.student@example.test');
-      // The form proposes the Student role.
-      await page.getByRole('button', { name: 'Send invitation' }).click();
+      const form = page.getByRole('form', { name: 'Invite someone' });
+      await form.getByLabel('E-mail to invite').fill('new.student@example.test');
+      await form.getByLabel('Invite as', { exact: true }).first().click();
+      await page
+        .getByRole('listbox', { name: 'Invite as' })
+        .getByRole('option', { name: 'Student', exact: true })
+        .click();
+      await form.getByRole('button', { name: 'Send invitation' }).click();
       await page.getByRole('table', { name: 'Pending invitations' }).getByText('new.student@example.test').waitFor();
       await page.getByRole('link', { name: 'Outbox' }).click();
       const mail = page.getByText('to new.student@example.test', { exact: false });

@@ -19,8 +19,11 @@ export function InvitationsPanel({ labId }: { labId: string }) {
   const failed = [invite, resend, revoke].find((mutation) => mutation.isError);
   return (
     <Stack>
-      <Title order={3}>Invite someone</Title>
+      <Title order={3} id="invite-title">
+        Invite someone
+      </Title>
       <form
+        aria-labelledby="invite-title"
         noValidate
         onSubmit={form.onSubmit((values) =>
           invite.mutate(inviteSchema.parse(values), {
@@ -30,9 +33,10 @@ export function InvitationsPanel({ labId }: { labId: string }) {
         )}
       >
         <Group align="flex-start">
-          <TextInput label="E-mail" type="email" required w={300} {...form.getInputProps('email')} />
+          {/* Labels of their own: the members table above has a "Role of …" selector per member. */}
+          <TextInput label="E-mail to invite" type="email" required w={300} {...form.getInputProps('email')} />
           <Select
-            label="Role"
+            label="Invite as"
             w={220}
             allowDeselect={false}
             description={labRoleDescriptions[form.values.role].description}
