@@ -110,9 +110,15 @@ function GroupCard({ labId, group, mayApprove }: { labId: string; group: Referen
                 </Table.Td>
                 <Table.Td>
                   {version.approvedAt ? (
-                    <Badge color="teal" variant="light">
-                      Approved by {version.approvedBy ?? 'a former member'}
-                    </Badge>
+                    // The approver's name beside the badge, not in it: a badge cuts long names off.
+                    <Stack gap={2} align="flex-start">
+                      <Badge color="teal" variant="light" miw="max-content">
+                        Approved
+                      </Badge>
+                      <Text size="xs" c="dimmed">
+                        by {version.approvedBy ?? 'a former member'}
+                      </Text>
+                    </Stack>
                   ) : mayApprove ? (
                     <Button
                       size="compact-sm"
