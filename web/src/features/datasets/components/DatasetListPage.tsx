@@ -1,18 +1,22 @@
 import { Alert, Anchor, Badge, Button, Group, Loader, Stack, Table, Text, Title } from '@mantine/core';
 import { Link, useParams } from 'react-router-dom';
 import { errorMessage } from '../../../app/api-client';
+import { useMe } from '../../../app/session';
 import { useDatasets } from '../api/datasets';
 
 export function DatasetListPage() {
   const { labId = '' } = useParams();
   const datasets = useDatasets(labId);
+  const role = useMe().data?.memberships.find((m) => m.labId === labId)?.role;
   return (
     <Stack>
       <Group justify="space-between">
         <Title order={2}>Datasets</Title>
-        <Button component={Link} to={`/labs/${labId}/datasets/new`}>
-          Import a file
-        </Button>
+        {role && role !== 'guest' && (
+          <Button component={Link} to={`/labs/${labId}/datasets/new`}>
+            Import a file
+          </Button>
+        )}
       </Group>
       {datasets.isPending && <Loader />}
       {datasets.error && <Alert color="red">{errorMessage(datasets.error)}</Alert>}

@@ -2,6 +2,7 @@ import { Alert, Anchor, Button, Group, Loader, Pagination, Stack, Table, Tabs, T
 import { useState } from 'react';
 import { Link, useNavigate, useParams } from 'react-router-dom';
 import { errorMessage } from '../../../app/api-client';
+import { useMe } from '../../../app/session';
 import { useDataset, useDeleteDataset, useVersionProblems, useVersionRows } from '../api/datasets';
 import { ProblemList } from './ProblemList';
 import { RowsTable } from './RowsTable';
@@ -12,6 +13,10 @@ export function DatasetPage() {
   const { labId = '', datasetId = '' } = useParams();
   const dataset = useDataset(labId, datasetId);
   const remove = useDeleteDataset(labId);
+  // As the API allows: guests only read; deleting is for analysts and PIs.
+  const role = useMe().data?.memberships.find((m) => m.labId === labId)?.role;
+  const mayImport = role !== undefined && role !== 'guest';
+  const mayDelete = role === 'pi' || role === 'analyst';
   const navigate = useNavigate();
   const [chosen, setChosen] = useState<number | null>(null);
   if (dataset.isPending) return <Loader />;
@@ -25,17 +30,21 @@ export function DatasetPage() {
       <Group justify="space-between">
         <Title order={2}>{dataset.data.name}</Title>
         <Group>
-          <Button component={Link} variant="light" to={`/labs/${labId}/datasets/new?datasetId=${datasetId}`}>
-            Import a corrected file
-          </Button>
-          <Button
-            color="red"
-            variant="subtle"
-            loading={remove.isPending}
-            onClick={() => remove.mutate({ datasetId }, { onSuccess: () => navigate(`/labs/${labId}/datasets`) })}
-          >
-            Delete dataset
-          </Button>
+          {mayImport && (
+            <Button component={Link} variant="light" to={`/labs/${labId}/datasets/new?datasetId=${datasetId}`}>
+              Import a corrected file
+            </Button>
+          )}
+          {mayDelete && (
+            <Button
+              color="red"
+              variant="subtle"
+              loading={remove.isPending}
+              onClick={() => remove.mutate({ datasetId }, { onSuccess: () => navigate(`/labs/${labId}/datasets`) })}
+            >
+              Delete dataset
+            </Button>
+          )}
         </Group>
       </Group>
       {remove.error && (

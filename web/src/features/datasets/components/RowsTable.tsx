@@ -24,7 +24,7 @@ export function RowsTable({ columns, rows }: { columns: StoredColumn[]; rows: Da
           {rows.map((row) => (
             <Table.Tr key={row.row}>
               <Table.Td>{row.row}</Table.Td>
-              <Table.Td>{row.sampleId}</Table.Td>
+              <Table.Td style={{ whiteSpace: 'nowrap' }}>{row.sampleId}</Table.Td>
               {hasGroup && <Table.Td>{row.group ?? '—'}</Table.Td>}
               {row.cells.map((cell, j) => (
                 <Table.Td key={j}>
