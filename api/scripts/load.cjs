@@ -147,7 +147,7 @@ async function main() {
       if (!byLabel.has(label)) byLabel.set(label, []);
       byLabel.get(label).push(res.ms);
       if (res.status < 200 || res.status >= 300) {
-        const key = `${label}: ${res.status}`;
+        const key = `${label}: ${res.status === 0 ? res.body : res.status}`;
         failures.set(key, (failures.get(key) ?? 0) + 1);
       }
     };
