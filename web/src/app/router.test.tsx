@@ -38,7 +38,8 @@ describe('app shell', () => {
     renderRoutes(routes, '/');
     expect(await screen.findByRole('navigation', { name: 'Main navigation' })).toBeInTheDocument();
     expect(screen.getByRole('heading', { name: 'Studies' })).toBeInTheDocument();
-    expect(screen.getByRole('combobox', { name: 'Lab' })).toHaveValue('Basalt group · Principal investigator');
+    expect(screen.getByRole('combobox', { name: 'Lab' })).toHaveValue('Basalt group');
+    expect(screen.getByText('Principal investigator')).toBeInTheDocument();
     expect(screen.getByRole('link', { name: 'Members' })).toHaveAttribute(
       'href',
       `/labs/${me.memberships[0].labId}/members`,

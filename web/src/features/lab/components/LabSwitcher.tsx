@@ -1,4 +1,4 @@
-import { Select } from '@mantine/core';
+import { Group, Select, Text } from '@mantine/core';
 import { labRoleDescriptions } from '@provenote/shared/schemas';
 import { useNavigate, useParams } from 'react-router-dom';
 import { useMe } from '../../../app/session';
@@ -11,21 +11,25 @@ export function LabSwitcher() {
   const memberships = me.data?.memberships ?? [];
   if (memberships.length === 0) return null;
   const current = labId ?? memberships[0].labId;
-  const options = memberships.map((m) => ({
-    value: m.labId,
-    label: `${m.labName} · ${labRoleDescriptions[m.role].label}`,
-  }));
+  const membership = memberships.find((m) => m.labId === current);
   return (
-    <Select
-      aria-label="Lab"
-      // Wide enough for a lab name of about fifty characters with the role at 1024 px; longer ones show in full on hover.
-      w={460}
-      title={options.find((o) => o.value === current)?.label}
-      comboboxProps={{ width: 'max-content' }}
-      allowDeselect={false}
-      value={current}
-      data={options}
-      onChange={(value) => value && value !== current && navigate(`/labs/${value}`)}
-    />
+    // The role sits beside the field rather than in it, so a lab name of about 45 characters fits at 1024 px.
+    <Group gap="xs" wrap="nowrap">
+      <Select
+        aria-label="Lab"
+        w={380}
+        title={membership?.labName}
+        comboboxProps={{ width: 'max-content' }}
+        allowDeselect={false}
+        value={current}
+        data={memberships.map((m) => ({ value: m.labId, label: m.labName }))}
+        onChange={(value) => value && value !== current && navigate(`/labs/${value}`)}
+      />
+      {membership && (
+        <Text size="sm" c="dimmed" style={{ whiteSpace: 'nowrap' }}>
+          {labRoleDescriptions[membership.role].label}
+        </Text>
+      )}
+    </Group>
   );
 }
