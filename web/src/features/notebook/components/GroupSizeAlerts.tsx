@@ -21,8 +21,10 @@ export function GroupSizeAlerts({ sizes, basis }: Props) {
           <Text size="sm">
             {small.map((g) => g.group).join(', ')} {small.length === 1 ? 'has' : 'have'} few members for {sizes.p}{' '}
             variables: distances to {small.length === 1 ? 'it' : 'them'} are unsteady, so true members look like
-            outsiders more often than α = {sizes.alpha} says. Use fewer elements, add members, or judge on the Hotelling
-            basis.
+            outsiders more often than α = {sizes.alpha} says.{' '}
+            {basis === 'hotelling'
+              ? 'The Hotelling basis in use allows for group size in the probabilities; fewer elements or more members would still steady them.'
+              : 'Use fewer elements, add members, or judge on the Hotelling basis.'}
           </Text>
           <List size="sm">
             {small.map((g) => (
