@@ -84,7 +84,8 @@ describe('NotebookPage', () => {
       await within(card(/Group check/)).findByText('7 of 8 members return to their own group when left out of it.'),
     ).toBeInTheDocument();
     expect(await within(card(/Assign/)).findByText('U7')).toBeInTheDocument();
-    expect(within(card(/Assign/)).getByText(/statistical evidence, not proof of origin/)).toBeInTheDocument();
+    // The caution's own title: the card's method help quotes the same caution in its body.
+    expect(within(card(/Assign/)).getByText('Evidence, not proof')).toBeInTheDocument();
     expect(await within(card(/Assign/)).findByText(/North ridge has few members for 1 variables/)).toBeInTheDocument();
     await userEvent.click(within(card(/Assign/)).getByRole('button', { name: 'Details of U7' }));
     expect(await screen.findByRole('table', { name: 'Contributions to D² per element' })).toBeInTheDocument();
