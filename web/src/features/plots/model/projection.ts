@@ -1,5 +1,6 @@
 import type { Projection } from '@provenote/shared/schemas';
-import { groupStyle, verdictStyles } from './palette';
+import { groupStyle } from './palette';
+import { unknownTraces } from './unknown-traces';
 
 /** "PC1 (72.4 %)": the axis and the share of the variance (or of the between-group trace) it carries. */
 export const axisTitle = (axis: Projection['axes'][number]) => `${axis.label} (${(axis.share * 100).toFixed(1)} %)`;
@@ -43,29 +44,6 @@ export function projectionTraces(data: Projection, groupOrder: string[]) {
       ...outline,
     ];
   });
-  const assigned = groups
-    .map((group) => ({ group, points: data.unknowns.filter((u) => u.verdict === 'assigned' && u.group === group) }))
-    .filter(({ points }) => points.length > 0)
-    .map(({ group, points }) => ({
-      ...markers(`Unknown, assigned to ${group}`, points),
-      marker: {
-        color: styleOf(group).colour,
-        symbol: `${styleOf(group).symbol}${verdictStyles.assigned.symbolSuffix}`,
-        size: 11,
-        line: { width: 2 },
-      },
-    }));
-  const others = (['ambiguous', 'unassigned'] as const)
-    .map((verdict) => ({ verdict, points: data.unknowns.filter((u) => u.verdict === verdict) }))
-    .filter(({ points }) => points.length > 0)
-    .map(({ verdict, points }) => ({
-      ...markers(`Unknown, ${verdictStyles[verdict].label.toLowerCase()}`, points),
-      marker: {
-        color: verdictStyles[verdict].colour,
-        symbol: verdictStyles[verdict].symbol,
-        size: 11,
-        line: { width: 2 },
-      },
-    }));
-  return [...perGroup, ...assigned, ...others];
+  const unknowns = unknownTraces(data.unknowns, groups, styleOf, markers);
+  return [...perGroup, ...unknowns];
 }

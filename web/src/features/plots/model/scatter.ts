@@ -1,5 +1,6 @@
 import type { Scatter } from '@provenote/shared/schemas';
-import { groupStyle, verdictStyles } from './palette';
+import { groupStyle } from './palette';
+import { unknownTraces } from './unknown-traces';
 
 const hover = (x: string, y: string) =>
   `Sample %{customdata}<br>${x} %{x} ppm<br>${y} %{y} ppm<extra>%{fullData.name}</extra>`;
@@ -28,30 +29,7 @@ export function scatterTraces(data: Scatter, groupOrder: string[]) {
       ...base(group, points),
       marker: { color: styleOf(group).colour, symbol: styleOf(group).symbol, size: 8, opacity: 0.75 },
     }));
-  const assigned = groups
-    .map((group) => ({ group, points: data.unknowns.filter((u) => u.verdict === 'assigned' && u.group === group) }))
-    .filter(({ points }) => points.length > 0)
-    .map(({ group, points }) => ({
-      ...base(`Unknown, assigned to ${group}`, points),
-      marker: {
-        color: styleOf(group).colour,
-        symbol: `${styleOf(group).symbol}${verdictStyles.assigned.symbolSuffix}`,
-        size: 11,
-        line: { width: 2 },
-      },
-    }));
-  const others = (['ambiguous', 'unassigned'] as const)
-    .map((verdict) => ({ verdict, points: data.unknowns.filter((u) => u.verdict === verdict) }))
-    .filter(({ points }) => points.length > 0)
-    .map(({ verdict, points }) => ({
-      ...base(`Unknown, ${verdictStyles[verdict].label.toLowerCase()}`, points),
-      marker: {
-        color: verdictStyles[verdict].colour,
-        symbol: verdictStyles[verdict].symbol,
-        size: 11,
-        line: { width: 2 },
-      },
-    }));
+  const unknowns = unknownTraces(data.unknowns, groups, styleOf, base);
   const pending = data.unknowns.filter((u) => u.verdict === null);
   const notAssigned =
     pending.length > 0
@@ -62,5 +40,5 @@ export function scatterTraces(data: Scatter, groupOrder: string[]) {
           },
         ]
       : [];
-  return [...reference, ...assigned, ...others, ...notAssigned];
+  return [...reference, ...unknowns, ...notAssigned];
 }
