@@ -21,6 +21,23 @@ function timed<T>(work: () => T): { result: T; ms: number } {
   return { result, ms: performance.now() - started };
 }
 
+/**
+ * Classification passes are timed REPEATS times and the fastest kept, the usual way to read a kernel's
+ * speed on a shared machine: a slower repeat measures the neighbours, not the code.
+ */
+const REPEATS = 3;
+
+async function fastestOf<T>(work: () => T | Promise<T>): Promise<{ result: T; ms: number }> {
+  let best: { result: T; ms: number } | undefined;
+  for (let r = 0; r < REPEATS; r++) {
+    const started = performance.now();
+    const result = await work();
+    const ms = performance.now() - started;
+    if (!best || ms < best.ms) best = { result, ms };
+  }
+  return best!;
+}
+
 async function classifyFigures(memory: MemoryPeak, log: (line: string) => void): Promise<BenchFigure[]> {
   const groups = packGroups(syntheticModels(GROUPS, MEMBERS, VARIABLES, 1));
   const figures: BenchFigure[] = [];
@@ -34,10 +51,8 @@ async function classifyFigures(memory: MemoryPeak, log: (line: string) => void):
       const data = syntheticUnknowns(rows, VARIABLES, GROUPS, 3);
       memory.checkpoint();
       const pairs = rows * GROUPS;
-      const one = timed(() => classifyAndSummarise(groups, data, 0, rows));
-      const startedAll = performance.now();
-      const all = await pool.classify(groups, data);
-      const allMs = performance.now() - startedAll;
+      const one = await fastestOf(() => classifyAndSummarise(groups, data, 0, rows));
+      const { result: all, ms: allMs } = await fastestOf(() => pool.classify(groups, data));
       if (all.typicalChi2 !== one.result.typicalChi2 || all.typicalHotelling !== one.result.typicalHotelling) {
         throw new Error('the threads and the single core disagree on the classification');
       }
@@ -46,13 +61,13 @@ async function classifyFigures(memory: MemoryPeak, log: (line: string) => void):
       figures.push(
         {
           key: `engine.classify.${label}.one_core.pairs_per_s`,
-          label: `classify ${label} × ${GROUPS} groups × ${VARIABLES} vars, one core`,
+          label: `classify ${label} × ${GROUPS} groups × ${VARIABLES} vars, one core (best of ${REPEATS})`,
           value: Math.round(pairs / (one.ms / 1000)),
           unit: 'pairs/s',
         },
         {
           key: `engine.classify.${label}.all_cores.pairs_per_s`,
-          label: `classify ${label} × ${GROUPS} groups × ${VARIABLES} vars, ${pool.threads} threads`,
+          label: `classify ${label} × ${GROUPS} groups × ${VARIABLES} vars, ${pool.threads} threads (best of ${REPEATS})`,
           value: Math.round(pairs / (allMs / 1000)),
           unit: 'pairs/s',
         },
