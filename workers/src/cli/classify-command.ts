@@ -19,11 +19,15 @@ export const ASSIGNMENT_COLUMNS = [
   'runner_up_probability',
 ] as const;
 
+/** Quadratic-rule posteriors (equal priors): a second view beside the typicality probabilities. */
+export const POSTERIOR_COLUMNS = ['sample_id', 'group', 'posterior'] as const;
+
 type Row = (string | number | null)[];
 
 export interface ClassifyResult {
   readonly distances: Row[];
   readonly assignments: Row[];
+  readonly posteriors: Row[];
   readonly manifest: ReturnType<typeof runManifest>;
 }
 
@@ -42,9 +46,13 @@ export function classifyTables(reference: Table, unknowns: Table, options: Class
   const names = fit.models.map((m) => m.name);
   const distances: Row[] = [];
   const assignments: Row[] = [];
+  const posteriors: Row[] = [];
   results.forEach((result, i) => {
     const id = unknownSamples.ids[i];
-    names.forEach((name, k) => distances.push([id, name, result.d2[k], result.pChi2[k], result.pHotelling[k]]));
+    names.forEach((name, k) => {
+      distances.push([id, name, result.d2[k], result.pChi2[k], result.pHotelling[k]]);
+      posteriors.push([id, name, result.posterior[k]]);
+    });
     const v = result.verdict;
     assignments.push([id, v.verdict, v.group, v.probability, v.runnerUp, v.runnerUpProbability]);
   });
@@ -54,15 +62,16 @@ export function classifyTables(reference: Table, unknowns: Table, options: Class
     unknownImputedCells: unknownFeatures.imputedCells,
     verdictCounts: counts,
   });
-  return { distances, assignments, manifest };
+  return { distances, assignments, posteriors, manifest };
 }
 
-/** The classify command: reads both CSV files, writes distances.csv, assignments.csv and run.json. */
+/** The classify command: reads both CSV files, writes distances.csv, assignments.csv, posteriors.csv and run.json. */
 export function runClassify(options: ClassifyOptions): ClassifyResult {
   const result = classifyTables(readTable(options.reference), readTable(options.unknowns), options);
   mkdirSync(options.out, { recursive: true });
   writeCsv(join(options.out, 'distances.csv'), DISTANCE_COLUMNS, result.distances);
   writeCsv(join(options.out, 'assignments.csv'), ASSIGNMENT_COLUMNS, result.assignments);
+  writeCsv(join(options.out, 'posteriors.csv'), POSTERIOR_COLUMNS, result.posteriors);
   writeManifest(options.out, result.manifest);
   return result;
 }

@@ -50,7 +50,11 @@ Options:
   --alpha A                 level of the verdicts, 0 < A < 1 (default 0.05)
   --seed N                  seed of the MCD random subsets (default ${DEFAULT_MCD_SEED})
   --below-limit M           replacement of "<DL" cells: dl-half | dl-sqrt2 | multiplicative (default dl-half)
-  --closure K               row total for multiplicative replacement (default 1000000, ppm)`;
+  --closure K               row total for multiplicative replacement (default 1000000, ppm)
+
+Output of classify: distances.csv (D², p_chi2, p_hotelling per sample and group), assignments.csv (verdicts),
+posteriors.csv (quadratic-rule posteriors with equal priors, a second view only) and run.json.
+Output of check: members.csv (leave-one-out) and separation.csv (pairwise Hotelling's T²).`;
 
 const VALUE_OPTIONS = [
   'reference',
