@@ -17,7 +17,8 @@ export const labRoleDescriptions: Record<LabRole, { label: string; description: 
   },
   student: {
     label: 'Student',
-    description: 'Uploads unknowns and assigns them against approved reference groups; reads everything.',
+    description:
+      'Uploads unknowns, runs the group check and assigns against reference groups once they are approved; reads everything.',
   },
   guest: {
     label: 'Guest',

@@ -1,6 +1,8 @@
 import { Alert, Button, Code, Loader, Stack, Table, Text, Title } from '@mantine/core';
 import { useParams } from 'react-router-dom';
 import { errorMessage } from '../../../app/api-client';
+import { useMe } from '../../../app/session';
+import { PiOnlyPage } from '../../../components/PiOnlyPage';
 import { useAuditLog } from '../api/audit';
 
 const dateFormat = new Intl.DateTimeFormat(undefined, { dateStyle: 'medium', timeStyle: 'medium' });
@@ -8,6 +10,14 @@ const dateFormat = new Intl.DateTimeFormat(undefined, { dateStyle: 'medium', tim
 /** Who did what in the lab, newest first (PI only; the API refuses everyone else). */
 export function AuditLogPage() {
   const { labId = '' } = useParams();
+  const me = useMe();
+  if (me.isPending) return <Loader size="sm" aria-label="Loading" />;
+  if (me.data?.memberships.find((m) => m.labId === labId)?.role !== 'pi')
+    return <PiOnlyPage labId={labId} title="Audit log" />;
+  return <AuditLogPageContent labId={labId} />;
+}
+
+function AuditLogPageContent({ labId }: { labId: string }) {
   const audit = useAuditLog(labId);
   const events = audit.data?.pages.flatMap((page) => page.events) ?? [];
   return (

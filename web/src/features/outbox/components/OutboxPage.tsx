@@ -1,6 +1,8 @@
 import { Accordion, Alert, Loader, Stack, Text, Title } from '@mantine/core';
 import { useParams } from 'react-router-dom';
 import { errorMessage } from '../../../app/api-client';
+import { useMe } from '../../../app/session';
+import { PiOnlyPage } from '../../../components/PiOnlyPage';
 import { useOutbox } from '../api/outbox';
 
 const dateFormat = new Intl.DateTimeFormat(undefined, { dateStyle: 'medium', timeStyle: 'medium' });
@@ -9,6 +11,14 @@ const linkPattern = /(https?:\/\/\S+)/g;
 /** Read-only: the mails this local installation "sent" for the lab, so their links can be followed. */
 export function OutboxPage() {
   const { labId = '' } = useParams();
+  const me = useMe();
+  if (me.isPending) return <Loader size="sm" aria-label="Loading" />;
+  if (me.data?.memberships.find((m) => m.labId === labId)?.role !== 'pi')
+    return <PiOnlyPage labId={labId} title="Outbox" />;
+  return <OutboxPageContent labId={labId} />;
+}
+
+function OutboxPageContent({ labId }: { labId: string }) {
   const outbox = useOutbox(labId);
   return (
     <Stack maw={900}>
