@@ -4,6 +4,7 @@ import { Link, useNavigate, useParams } from 'react-router-dom';
 import { errorMessage } from '../../../app/api-client';
 import { useMe } from '../../../app/session';
 import { useDataset, useDeleteDataset, useVersionProblems, useVersionRows } from '../api/datasets';
+import { DeleteDatasetButton } from './DeleteDatasetButton';
 import { ProblemList } from './ProblemList';
 import { RowsTable } from './RowsTable';
 import { SummaryCounts } from './SummaryCounts';
@@ -36,22 +37,16 @@ export function DatasetPage() {
             </Button>
           )}
           {mayDelete && (
-            <Button
-              color="red"
-              variant="subtle"
-              loading={remove.isPending}
-              onClick={() => remove.mutate({ datasetId }, { onSuccess: () => navigate(`/labs/${labId}/datasets`) })}
-            >
-              Delete dataset
-            </Button>
+            <DeleteDatasetButton
+              name={dataset.data.name}
+              versionCount={versions.length}
+              pending={remove.isPending}
+              error={remove.error}
+              onConfirm={() => remove.mutate({ datasetId }, { onSuccess: () => navigate(`/labs/${labId}/datasets`) })}
+            />
           )}
         </Group>
       </Group>
-      {remove.error && (
-        <Alert color="red" title="Not deleted">
-          {errorMessage(remove.error)}
-        </Alert>
-      )}
       <Table withTableBorder aria-label="Versions">
         <Table.Thead>
           <Table.Tr>
