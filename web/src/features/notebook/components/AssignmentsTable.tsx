@@ -179,11 +179,12 @@ export function AssignmentsTable({ labId, studyId, runId, canOverride, basis, el
                 textAlign: 'right',
                 render: (r) => formatP(r.probability),
               },
-              { accessor: 'runnerUp', title: 'Runner-up', render: (r) => r.runnerUp ?? '—' },
+              { accessor: 'runnerUp', title: 'Runner-up', noWrap: true, render: (r) => r.runnerUp ?? '—' },
               {
                 accessor: 'runnerUpProbability',
                 title: 'Runner-up probability',
                 sortable: true,
+                noWrap: true,
                 textAlign: 'right',
                 render: (r) => formatP(r.runnerUpProbability),
               },

@@ -11,6 +11,9 @@ import { StudyStatusBadge } from './StudyStatusBadge';
 
 const dateFormat = new Intl.DateTimeFormat(undefined, { dateStyle: 'medium', timeStyle: 'short' });
 
+// The study name and description take the room left; the short columns keep to one line at laptop width.
+const noWrap = { whiteSpace: 'nowrap' } as const;
+
 export const studyPath = (labId: string, studyId: string) => `/labs/${labId}/studies/${studyId}`;
 
 /** The home page: the studies of the lab in the address, or of the person's first lab. */
@@ -61,9 +64,9 @@ function StudyTable({ labId, role }: { labId: string; role: LabRole | undefined 
           <Table.Thead>
             <Table.Tr>
               <Table.Th>Study</Table.Th>
-              <Table.Th>Status</Table.Th>
-              <Table.Th>Owner</Table.Th>
-              <Table.Th>Last change</Table.Th>
+              <Table.Th w={1}>Status</Table.Th>
+              <Table.Th style={noWrap}>Owner</Table.Th>
+              <Table.Th style={noWrap}>Last change</Table.Th>
             </Table.Tr>
           </Table.Thead>
           <Table.Tbody>
@@ -82,8 +85,8 @@ function StudyTable({ labId, role }: { labId: string; role: LabRole | undefined 
                 <Table.Td>
                   <StudyStatusBadge status={study.status} />
                 </Table.Td>
-                <Table.Td>{study.owner?.displayName ?? '—'}</Table.Td>
-                <Table.Td>{dateFormat.format(new Date(study.updatedAt))}</Table.Td>
+                <Table.Td style={noWrap}>{study.owner?.displayName ?? '—'}</Table.Td>
+                <Table.Td style={noWrap}>{dateFormat.format(new Date(study.updatedAt))}</Table.Td>
               </Table.Tr>
             ))}
           </Table.Tbody>
