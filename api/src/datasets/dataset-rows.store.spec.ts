@@ -1,5 +1,5 @@
 import { DataSource } from 'typeorm';
-import type { FileLayout } from '@provenote/shared';
+import { cellFlags, type FileLayout } from '@provenote/shared';
 import { type SignedInMember, createLabWithMembers } from '../../test/auth-helpers';
 import { createTestApp, type TestApp } from '../../test/test-app';
 
@@ -21,34 +21,86 @@ describe('dataset rows written with COPY', () => {
   });
   afterAll(() => testApp.close());
 
+  async function importCsv(name: string, kind: 'reference' | 'unknowns', csv: string): Promise<string> {
+    const base = `/api/labs/${labId}`;
+    const layout: FileLayout = (
+      await analyst.agent.post(`${base}/dataset-files`).attach('file', Buffer.from(csv), name).expect(201)
+    ).body;
+    const dataset = (
+      await analyst.agent
+        .post(`${base}/datasets`)
+        .send({ name, kind, fileId: layout.file.id, mapping: layout.mapping })
+        .expect(201)
+    ).body;
+    return dataset.versions[0].id;
+  }
+
   it('stores ids, raw text and attributes with tabs, line breaks, backslashes, quotes and braces unchanged', async () => {
     const lines = ['sample,Zr,Nb,note'];
     AWKWARD.forEach((text, i) =>
       lines.push([csvCell(`S${i} ${text}`), '12.5', csvCell(`x${text}`), csvCell(text)].join(',')),
     );
-    const base = `/api/labs/${labId}`;
-    const layout: FileLayout = (
-      await analyst.agent
-        .post(`${base}/dataset-files`)
-        .attach('file', Buffer.from(lines.join('\r\n')), 'awkward.csv')
-        .expect(201)
-    ).body;
-    const dataset = (
-      await analyst.agent
-        .post(`${base}/datasets`)
-        .send({ name: 'awkward', kind: 'unknowns', fileId: layout.file.id, mapping: layout.mapping })
-        .expect(201)
-    ).body;
+    const versionId = await importCsv('awkward.csv', 'unknowns', lines.join('\r\n'));
     const rows: { sample_id: string; ppm: (number | null)[]; raw: (string | null)[]; attributes: unknown }[] =
       await testApp.app
         .get(DataSource)
         .query(`SELECT sample_id, ppm, raw, attributes FROM dataset_rows WHERE version_id = $1 ORDER BY position`, [
-          dataset.versions[0].id,
+          versionId,
         ]);
     expect(rows.map((row) => row.sample_id)).toEqual(AWKWARD.map((text, i) => `S${i} ${text}`.trim()));
     expect(rows.map((row) => row.raw)).toEqual(AWKWARD.map((text) => [null, `x${text}`]));
     expect(rows.map((row) => row.ppm[0])).toEqual(AWKWARD.map(() => 12.5));
     // The importer keeps no attributes for a row whose extra cells are all empty.
     expect(rows.map((row) => row.attributes)).toEqual(AWKWARD.map((text) => (text === '' ? null : { note: text })));
+  });
+
+  it('stores numbers, units, gaps, flags and groups as the binary COPY stream gave them', async () => {
+    const versionId = await importCsv(
+      'numbers.csv',
+      'reference',
+      ['Sample,Group,Zr ppm,Nb ppb,Th ppm', 'A1,g1,12.5,<0.5,-0.25', 'A2,,n.d.,3000,7', 'A3,g2,1e-3,,0'].join('\n'),
+    );
+    const rows: {
+      sample_id: string;
+      group_name: string | null;
+      ppm: (number | null)[];
+      original: (number | null)[];
+      flags: number[];
+      raw: (string | null)[];
+    }[] = await testApp.app
+      .get(DataSource)
+      .query(
+        `SELECT sample_id, group_name, ppm, original, flags, raw FROM dataset_rows WHERE version_id = $1 ORDER BY position`,
+        [versionId],
+      );
+    const flag = (name: (typeof cellFlags)[number]) => cellFlags.indexOf(name);
+    expect(rows.map((row) => [row.sample_id, row.group_name])).toEqual([
+      ['A1', 'g1'],
+      ['A2', null],
+      ['A3', 'g2'],
+    ]);
+    expect(rows.map((row) => row.original)).toEqual([
+      [12.5, 0.5, -0.25],
+      [null, 3000, 7],
+      [0.001, null, 0],
+    ]);
+    // 1 ppb is 1e-3 ppm.
+    expect(rows[0].ppm[1]).toBeCloseTo(0.0005, 15);
+    expect(rows[1].ppm[1]).toBeCloseTo(3, 12);
+    expect(rows.map((row) => [row.ppm[0], row.ppm[2]])).toEqual([
+      [12.5, -0.25],
+      [null, 7],
+      [0.001, 0],
+    ]);
+    expect(rows.map((row) => row.flags)).toEqual([
+      [flag('measured'), flag('below_dl'), flag('negative')],
+      [flag('not_determined'), flag('measured'), flag('measured')],
+      [flag('measured'), flag('empty'), flag('measured')],
+    ]);
+    expect(rows.map((row) => row.raw)).toEqual([
+      [null, '<0.5', null],
+      ['n.d.', null, null],
+      ['1e-3', null, null],
+    ]);
   });
 });
