@@ -1,6 +1,6 @@
 import { BadRequestException } from '@nestjs/common';
 import type { EntityManager } from 'typeorm';
-import { cellFlags, type ElementSummary, type StepParameters } from '@provenote/shared';
+import { cellFlags, EngineError, kruskalWallis, type ElementSummary, type StepParameters } from '@provenote/shared';
 import { DatasetVersion } from '../datasets/dataset-version.entity';
 
 const DETECTED_FLAGS = [cellFlags.indexOf('measured'), cellFlags.indexOf('negative')];
@@ -12,6 +12,51 @@ interface SummaryRow {
   median: number | null;
   q1: number | null;
   q3: number | null;
+}
+
+interface GroupValuesRow {
+  idx: string;
+  group_name: string;
+  values: number[];
+}
+
+/**
+ * Kruskal–Wallis H per element between the groups of the reference data's group column, on the measured
+ * values only (a detection limit is not a rank). Samples without a group take no part.
+ */
+async function screening(
+  manager: EntityManager,
+  version: DatasetVersion,
+  elementOf: (idx: string) => string,
+): Promise<ElementSummary['screening']> {
+  const rows: GroupValuesRow[] = await manager.query(
+    `SELECT c.idx, r.group_name, array_agg(c.ppm) AS values
+     FROM dataset_rows r, unnest(r.ppm, r.flags) WITH ORDINALITY AS c(ppm, flag, idx)
+     WHERE r.version_id = $1 AND r.group_name IS NOT NULL AND c.ppm IS NOT NULL AND c.flag = ANY($2::smallint[])
+     GROUP BY c.idx, r.group_name ORDER BY c.idx, r.group_name`,
+    [version.id, DETECTED_FLAGS],
+  );
+  const byElement = new Map<string, number[][]>();
+  for (const row of rows) {
+    const groups = byElement.get(row.idx) ?? [];
+    groups.push(row.values.map(Number));
+    byElement.set(row.idx, groups);
+  }
+  const groups = [...new Set(rows.map((r) => r.group_name))].sort();
+  const elements = version.columns.map((_, i) => {
+    const idx = String(i + 1);
+    const element = elementOf(idx);
+    const values = byElement.get(idx) ?? [];
+    if (values.length < 2) return { element, reason: 'measured in fewer than two groups' };
+    try {
+      const { h, df, p } = kruskalWallis(values);
+      return { element, h, df, p };
+    } catch (error) {
+      if (error instanceof EngineError) return { element, reason: error.message };
+      throw error;
+    }
+  });
+  return { groups, elements };
 }
 
 /**
@@ -41,16 +86,18 @@ export async function elementSummary(
     [version.id, DETECTED_FLAGS],
   );
   const samples = version.summary.imported;
+  const elementOf = (idx: string) => version.columns[Number(idx) - 1]?.element ?? `column ${idx}`;
   return {
     datasetVersionId: version.id,
     samples,
     elements: rows.map((row) => ({
-      element: version.columns[Number(row.idx) - 1]?.element ?? `column ${row.idx}`,
+      element: elementOf(row.idx),
       withValue: Number(row.with_value),
       fractionDetected: samples > 0 ? Number(row.detected) / samples : 0,
       median: row.median,
       q1: row.q1,
       q3: row.q3,
     })),
+    screening: await screening(manager, version, elementOf),
   };
 }

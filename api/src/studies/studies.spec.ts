@@ -177,6 +177,16 @@ describe('studies and their step cards (HTTP, PostgreSQL)', () => {
     // Quartiles by linear interpolation between order statistics, as PostgreSQL's percentile_cont
     // defines them (PostgreSQL 15 manual, "Ordered-Set Aggregate Functions"): of 95, 96, 97, 210, 211, 212.
     expect(zr).toEqual({ element: 'Zr', withValue: 7, fractionDetected: 6 / 7, median: 153.5, q1: 96.25, q3: 210.75 });
+    // Reference values from scipy.stats.kruskal 1.17 (tie-corrected H, chi-square p): Nb 12,13,14,13 against
+    // 24,25,26 gives H = 4.581818, p = 0.032313; Zr leaves out N4's detection limit: 210,211,212 against 95,96,97
+    // gives H = 3.857143, p = 0.049535.
+    expect(res.body.screening.groups).toEqual(['North ridge', 'South fan']);
+    const screened = (name: string) => res.body.screening.elements.find((e: { element: string }) => e.element === name);
+    expect(screened('Nb').h).toBeCloseTo(4.581818, 5);
+    expect(screened('Nb').p).toBeCloseTo(0.032313, 5);
+    expect(screened('Zr')).toMatchObject({ df: 1 });
+    expect(screened('Zr').h).toBeCloseTo(3.857143, 5);
+    expect(screened('Zr').p).toBeCloseTo(0.049535, 5);
   });
 
   it('answers invalid settings with the field to fix', async () => {

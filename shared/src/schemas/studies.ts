@@ -243,6 +243,20 @@ export const elementSummarySchema = z.object({
       q3: z.number().nullable(),
     }),
   ),
+  /**
+   * Kruskal–Wallis screening of each element's measured values between the groups named in the reference
+   * data's group column (rank-based, so the same under log10 or ln). An element it cannot be computed for
+   * (fewer than two groups with a measured value, or all values equal) is listed with the reason instead.
+   */
+  screening: z.object({
+    groups: z.array(z.string()),
+    elements: z.array(
+      z.union([
+        z.object({ element: z.string(), h: z.number(), df: z.number().int(), p: z.number().min(0).max(1) }),
+        z.object({ element: z.string(), reason: z.string() }),
+      ]),
+    ),
+  }),
 });
 export type ElementSummary = z.infer<typeof elementSummarySchema>;
 

@@ -169,4 +169,11 @@ export const elementSummary = {
     { element: 'Zr', withValue: 8, fractionDetected: 1, median: 150, q1: 96, q3: 210 },
     { element: 'Nb', withValue: 8, fractionDetected: 0.75, median: 14.2, q1: 12.1, q3: 24.5 },
   ],
+  screening: {
+    groups: ['North ridge', 'South fan'],
+    elements: [
+      { element: 'Zr', h: 5.33, df: 1, p: 0.021 },
+      { element: 'Nb', reason: 'measured in fewer than two groups' },
+    ],
+  },
 };
