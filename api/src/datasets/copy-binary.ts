@@ -68,7 +68,14 @@ export class BinaryCopyWriter {
     this.offset = start + length;
   }
 
-  float8Array(values: readonly (number | null)[]): void {
+  float8(value: number | null): void {
+    if (value === null) return this.null();
+    this.reserve(12);
+    this.int32(8);
+    this.offset = this.buffer.writeDoubleBE(value, this.offset);
+  }
+
+  float8Array(values: ArrayLike<number | null>): void {
     this.array(values, PG_OID.float8, 8, (value, at) => this.buffer.writeDoubleBE(value, at));
   }
 
@@ -100,14 +107,15 @@ export class BinaryCopyWriter {
   }
 
   private array<T extends number>(
-    values: readonly (T | null)[],
+    values: ArrayLike<T | null>,
     oid: number,
     width: number,
     write: (value: T, at: number) => void,
   ): void {
     const start = this.openArray(values, oid);
     this.reserve(values.length * (4 + width));
-    for (const value of values) {
+    for (let i = 0; i < values.length; i++) {
+      const value = values[i];
       if (value === null) {
         this.int32(NULL_LENGTH);
         continue;
@@ -120,12 +128,12 @@ export class BinaryCopyWriter {
   }
 
   /** The field's length word (filled in by closeField) and the array header; an empty array has no dimension. */
-  private openArray(values: readonly unknown[], oid: number): number {
+  private openArray(values: ArrayLike<unknown>, oid: number): number {
     this.reserve(24);
     const start = this.offset;
     this.offset += 4;
     this.int32(values.length === 0 ? 0 : 1);
-    this.int32(values.includes(null) ? 1 : 0);
+    this.int32(Array.prototype.includes.call(values, null) ? 1 : 0);
     this.int32(oid);
     if (values.length > 0) {
       this.int32(values.length);

@@ -45,7 +45,7 @@ export async function writeRunInputs(
         from,
         slice.map((s) => s.sampleId),
         slice.map((s) => s.group ?? null),
-        // Literals joined here rather than arrays for pg to escape element by element (see float8Literal).
+        // Literals joined here rather than arrays for pg to escape and quote element by element.
         `{${slice.map((s) => s.values.join(',')).join(',')}}`,
         `{${slice.map((s) => (s.belowDetection ?? new Array<boolean>(p).fill(false)).join(',')).join(',')}}`,
         p,
