@@ -19,8 +19,11 @@ const ASSIGNMENT_COLUMNS = `run_id, ordinal, sample_id, verdict, group_name, pro
   runner_up_probability, d2, p_chi2, p_hotelling, contributions`;
 const ASSIGNMENT_FIELDS = 12;
 
+/** What the assignment rows are made of; the projections are stored apart. */
+export type AssignmentResults = Omit<ClassifyResults, 'projections'>;
+
 /** Unknowns [from, to) of a run's results as one binary COPY stream, fields in ASSIGNMENT_COLUMNS order. */
-export function assignmentsCopy(runId: string, results: ClassifyResults, from: number, to: number): Buffer {
+export function assignmentsCopy(runId: string, results: AssignmentResults, from: number, to: number): Buffer {
   const g = results.groups.length;
   const p = results.variables.length;
   const run = uuidBytes(runId);
@@ -51,7 +54,7 @@ export function assignmentsCopy(runId: string, results: ClassifyResults, from: n
 export async function insertAssignments(
   manager: EntityManager,
   runId: string,
-  results: ClassifyResults,
+  results: AssignmentResults,
   from: number,
   to: number,
 ): Promise<void> {
