@@ -118,7 +118,7 @@ export class StepsService {
     return scatter(
       this.dataSource.manager,
       labId,
-      { data: settings('data'), groups: settings('groups'), check: settings('check') },
+      { data: settings('data'), prepare: settings('prepare'), groups: settings('groups'), check: settings('check') },
       assignRunId,
       query,
     );

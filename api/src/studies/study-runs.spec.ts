@@ -128,7 +128,8 @@ describe('running the notebook cards on the queue (HTTP, PostgreSQL, Redis)', ()
     });
     expect(assigned.status).toBe('ready_for_review');
 
-    const plot = (await agent.get(`${base()}/studies/${study.id}/scatter?x=Zr&y=La`).expect(200)).body;
+    const plot = (await agent.get(`${base()}/studies/${study.id}/scatter?space=measured&x=Zr&y=La`).expect(200)).body;
+    expect(plot).toMatchObject({ space: 'measured', variables: ['Zr', 'Nb', 'La'], x: 'Zr', y: 'La' });
     expect(plot.reference).toHaveLength(42);
     expect(new Set(plot.reference.map((p: { group: string }) => p.group))).toEqual(new Set(['North', 'South', 'East']));
     expect(plot.unknowns).toHaveLength(9);
@@ -144,9 +145,20 @@ describe('running the notebook cards on the queue (HTTP, PostgreSQL, Redis)', ()
       group: 'North',
       belowDetection: false,
     });
-    await agent.get(`${base()}/studies/${study.id}/scatter?x=Zr&y=Cu`).expect(400);
-    const incomplete = await agent.get(`${base()}/studies/${study.id}/scatter?x=Zr`).expect(400);
-    expect(incomplete.body.errors[0]).toMatchObject({ path: 'y' });
+    // The Prepare card's ln, as the natural logarithm defines it, on the same member.
+    const prepared = (await agent.get(`${base()}/studies/${study.id}/scatter`).expect(200)).body;
+    expect(prepared).toMatchObject({ space: 'prepared', variables: ['ln(Zr)', 'ln(Nb)', 'ln(La)'], x: 'ln(Zr)' });
+    const lnPlot = (await agent.get(`${base()}/studies/${study.id}/scatter?x=ln(Zr)&y=ln(La)`).expect(200)).body;
+    expect(lnPlot.reference).toHaveLength(42);
+    expect(lnPlot.unknowns).toHaveLength(9);
+    const nn1 = lnPlot.reference.find((p: { sampleId: string }) => p.sampleId === 'NN1');
+    expect(nn1.x).toBeCloseTo(Math.log(Number(zr)), 12);
+    expect(nn1.y).toBeCloseTo(Math.log(Number(la)), 12);
+    const wrongSpace = await agent.get(`${base()}/studies/${study.id}/scatter?x=Zr&y=La`).expect(400);
+    expect(wrongSpace.body.message).toMatch(/ln\(Zr\)/);
+    await agent.get(`${base()}/studies/${study.id}/scatter?space=measured&x=Zr&y=Cu`).expect(400);
+    const unknownSpace = await agent.get(`${base()}/studies/${study.id}/scatter?space=raw`).expect(400);
+    expect(unknownSpace.body.errors[0]).toMatchObject({ path: 'space' });
 
     const page = await agent.get(`${base()}/runs/${assignRun}/assignments`).expect(200);
     expect(page.body.total).toBe(9);

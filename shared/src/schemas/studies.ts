@@ -260,8 +260,17 @@ export const elementSummarySchema = z.object({
 });
 export type ElementSummary = z.infer<typeof elementSummarySchema>;
 
-/** GET /api/labs/:labId/studies/:studyId/scatter — query string: the two elements to plot. */
-export const scatterQuerySchema = z.object({ x: z.string().min(1), y: z.string().min(1) });
+/**
+ * GET /api/labs/:labId/studies/:studyId/scatter — query string: the space and two of its coordinates.
+ * "prepared": the coordinates after the Prepare card's below-detection rule and transform, named as the
+ * engine names them (e.g. "clr(Zr)", "pivot(Zr)", "ln(Zr/Nb)"); "measured": the stored ppm of two elements.
+ * Without x and y the first two coordinates of the space are drawn.
+ */
+export const scatterQuerySchema = z.object({
+  space: z.enum(['prepared', 'measured']).default('prepared'),
+  x: z.string().min(1).optional(),
+  y: z.string().min(1).optional(),
+});
 export type ScatterQuery = z.infer<typeof scatterQuerySchema>;
 
 /** At most this many unknowns are sent for a scatter plot; more would not be readable as points. */
@@ -271,12 +280,15 @@ const scatterPointSchema = z.object({
   sampleId: z.string(),
   x: z.number(),
   y: z.number(),
-  /** Either value is a detection limit, not a measurement. */
+  /** A value the point depends on is a detection limit, not a measurement (replaced, in the prepared space). */
   belowDetection: z.boolean(),
 });
 
-/** Measured values (ppm) of two elements: reference members by group, unknowns with their verdicts. */
+/** Two coordinates of the reference members by group and of the unknowns with their verdicts. */
 export const scatterSchema = z.object({
+  space: z.enum(['prepared', 'measured']),
+  /** Every coordinate of the space, in the engine's order: what x and y may be. */
+  variables: z.array(z.string()),
   x: z.string(),
   y: z.string(),
   reference: z.array(scatterPointSchema.extend({ group: z.string() })),

@@ -1,16 +1,25 @@
-import { queryOptions, useQuery } from '@tanstack/react-query';
-import { scatterSchema } from '@provenote/shared/schemas';
+import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
+import { scatterSchema, type ScatterQuery } from '@provenote/shared/schemas';
 import { apiRequest } from '../../../app/api-client';
 
-/** Measured values of two elements for the study's groups and unknowns. */
-export const scatterQuery = (labId: string, studyId: string, x: string, y: string) =>
+type Space = ScatterQuery['space'];
+
+/** Two coordinates (prepared or measured) for the study's groups and unknowns; x and y default on the API. */
+export const scatterQuery = (labId: string, studyId: string, space: Space, x: string | null, y: string | null) =>
   queryOptions({
-    queryKey: ['labs', labId, 'studies', studyId, 'scatter', x, y],
-    queryFn: ({ signal }) =>
-      apiRequest(`/labs/${labId}/studies/${studyId}/scatter?${new URLSearchParams({ x, y })}`, scatterSchema, {
-        signal,
-      }),
+    queryKey: ['labs', labId, 'studies', studyId, 'scatter', space, x, y],
+    queryFn: ({ signal }) => {
+      const params = new URLSearchParams({ space });
+      if (x) params.set('x', x);
+      if (y) params.set('y', y);
+      return apiRequest(`/labs/${labId}/studies/${studyId}/scatter?${params}`, scatterSchema, { signal });
+    },
   });
 
-export const useScatter = (labId: string, studyId: string, x: string | null, y: string | null) =>
-  useQuery({ ...scatterQuery(labId, studyId, x ?? '', y ?? ''), enabled: Boolean(x && y && x !== y) });
+export const useScatter = (labId: string, studyId: string, space: Space, x: string | null, y: string | null) =>
+  useQuery({
+    ...scatterQuery(labId, studyId, space, x, y),
+    enabled: x === null || x !== y,
+    // The axis choices come from the last answer, so they stay while the next pair loads.
+    placeholderData: keepPreviousData,
+  });

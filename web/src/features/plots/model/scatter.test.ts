@@ -4,6 +4,8 @@ import { groupStyle } from './palette';
 import { scatterTraces } from './scatter';
 
 const data: Scatter = {
+  space: 'measured',
+  variables: ['Zr', 'La'],
   x: 'Zr',
   y: 'La',
   reference: [
@@ -43,5 +45,11 @@ describe('scatterTraces', () => {
   it('names the sample and both values on hover', () => {
     expect(traces[0].hovertemplate).toContain('Sample %{customdata}');
     expect(traces[0].hovertemplate).toContain('Zr %{x} ppm');
+  });
+
+  it('gives transformed coordinates no unit', () => {
+    const clr = scatterTraces({ ...data, space: 'prepared', x: 'clr(Zr)', y: 'clr(La)' }, ['North'], false);
+    expect(clr[0].hovertemplate).toContain('clr(Zr) %{x}<br>');
+    expect(clr[0].hovertemplate).not.toContain('ppm');
   });
 });

@@ -2,15 +2,15 @@ import type { Scatter } from '@provenote/shared/schemas';
 import { groupStyle } from './palette';
 import { unknownTraces } from './unknown-traces';
 
-const hover = (x: string, y: string) =>
-  `Sample %{customdata}<br>${x} %{x} ppm<br>${y} %{y} ppm<extra>%{fullData.name}</extra>`;
+const hover = (x: string, y: string, unit: string) =>
+  `Sample %{customdata}<br>${x} %{x}${unit}<br>${y} %{y}${unit}<extra>%{fullData.name}</extra>`;
 
 /**
- * Plotly traces for two measured elements: one trace per reference group (its colour and shape, filled),
+ * Plotly traces for two coordinates (in ppm when `inPpm`, else as the transform names them): one trace per reference group (its colour and shape, filled),
  * then the unknowns by verdict as open markers — an assigned unknown in its group's colour and shape.
  * Values are drawn as stored; nothing is computed here.
  */
-export function scatterTraces(data: Scatter, groupOrder: string[]) {
+export function scatterTraces(data: Scatter, groupOrder: string[], inPpm = true) {
   const groups = [...new Set([...groupOrder, ...data.reference.map((p) => p.group)])];
   const styleOf = (group: string) => groupStyle(groups.indexOf(group));
   const base = (name: string, points: { x: number; y: number; sampleId: string }[]) => ({
@@ -20,7 +20,7 @@ export function scatterTraces(data: Scatter, groupOrder: string[]) {
     x: points.map((p) => p.x),
     y: points.map((p) => p.y),
     customdata: points.map((p) => p.sampleId),
-    hovertemplate: hover(data.x, data.y),
+    hovertemplate: hover(data.x, data.y, inPpm ? ' ppm' : ''),
   });
   const reference = groups
     .map((group) => ({ group, points: data.reference.filter((p) => p.group === group) }))
