@@ -12,3 +12,4 @@ export * from './datasets';
 export * from './bundle';
 export * from './bundle-api';
 export * from './projections';
+export * from './probability-map';
