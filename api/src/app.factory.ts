@@ -6,6 +6,7 @@ import type { NestExpressApplication } from '@nestjs/platform-express';
 import { DocumentBuilder, SwaggerModule } from '@nestjs/swagger';
 import cookieParser from 'cookie-parser';
 import express, { type NextFunction, type Request, type Response } from 'express';
+import { PayloadTooLargeException } from '@nestjs/common';
 import helmet from 'helmet';
 import { cleanupOpenApiDoc } from 'nestjs-zod';
 import { AppModule } from './app.module';
@@ -15,6 +16,19 @@ import { APP_VERSION } from './version';
 export const API_PREFIX = 'api';
 
 /**
+ * The widest file a mapping may confirm. Instrument exports run to a few hundred columns; this leaves room for
+ * wide merged sheets while keeping one request's parse bounded.
+ */
+export const MAX_MAPPING_COLUMNS = 20_000;
+/** Room for MAX_MAPPING_COLUMNS columns at up to 1 kB of JSON each (a typical column takes about 120 bytes). */
+const MAPPING_BODY_LIMIT = `${MAX_MAPPING_COLUMNS}kb`;
+const DEFAULT_BODY_LIMIT = '100kb';
+/** The routes whose body carries a whole mapping (one entry per column of the file). */
+const MAPPING_ROUTE = new RegExp(
+  `^/${API_PREFIX}/labs/[^/]+/(dataset-files/[^/]+/preview|datasets|datasets/[^/]+/versions)/?$`,
+);
+
+/**
  * Builds the HTTP application: security headers, one origin for the API (under /api) and the built web
  * app, the OpenAPI description at /api/docs. Used by main.ts and by the HTTP tests.
  */
@@ -22,6 +36,8 @@ export async function createApp(config: AppConfig, options: { logger?: false } =
   const app = await NestFactory.create<NestExpressApplication>(AppModule.forRoot(config), {
     logger: options.logger ?? ['log', 'warn', 'error'],
     bufferLogs: false,
+    // Registered below, so the mapping routes can take a larger body than the rest.
+    bodyParser: false,
   });
   app.enableShutdownHooks();
   app.set('trust proxy', 'loopback');
@@ -52,6 +68,7 @@ export async function createApp(config: AppConfig, options: { logger?: false } =
   );
   app.enableCors({ origin: new URL(config.PUBLIC_URL).origin, credentials: true });
   app.use(cookieParser());
+  useBodyParsers(app);
 
   const document = SwaggerModule.createDocument(
     app,
@@ -69,6 +86,28 @@ export async function createApp(config: AppConfig, options: { logger?: false } =
   if (config.WEB_DIST) serveWebApp(app, config.WEB_DIST);
   return app;
 }
+
+function useBodyParsers(app: NestExpressApplication) {
+  const mappingJson = express.json({ limit: MAPPING_BODY_LIMIT });
+  const json = express.json({ limit: DEFAULT_BODY_LIMIT });
+  app.use((req: Request, res: Response, next: NextFunction) => {
+    if (req.method !== 'POST' || !MAPPING_ROUTE.test(req.path)) return json(req, res, next);
+    mappingJson(req, res, (error?: unknown) => {
+      if (error) return next(isTooLarge(error) ? tooManyColumns() : error);
+      const columns = (req.body as { mapping?: { columns?: unknown } } | undefined)?.mapping?.columns;
+      next(Array.isArray(columns) && columns.length > MAX_MAPPING_COLUMNS ? tooManyColumns() : undefined);
+    });
+  });
+  app.use(express.urlencoded({ extended: true, limit: DEFAULT_BODY_LIMIT }));
+}
+
+const isTooLarge = (error: unknown) => (error as { type?: unknown }).type === 'entity.too.large';
+
+const tooManyColumns = () =>
+  new PayloadTooLargeException(
+    `A mapping may confirm at most ${MAX_MAPPING_COLUMNS.toLocaleString('en')} columns; ` +
+      'split the file into narrower files (sample id plus a share of the columns) and import each',
+  );
 
 /** The built single-page app: static assets, and index.html for every other non-API GET. */
 function serveWebApp(app: NestExpressApplication, dist: string) {
