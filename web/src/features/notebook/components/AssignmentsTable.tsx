@@ -26,7 +26,7 @@ interface Props {
   elements: string[];
 }
 
-/** Short pages keep the notebook readable; the heat map shows the same page, so more can be asked for. */
+/** Short pages keep the notebook readable; the heat map draws the whole run on its own. */
 const PAGE_SIZES = [20, 50, 100];
 
 export function AssignmentsTable({ labId, studyId, runId, canOverride, basis, elements }: Props) {
@@ -119,7 +119,7 @@ export function AssignmentsTable({ labId, studyId, runId, canOverride, basis, el
           />
         </Tabs.Panel>
         <Tabs.Panel value="heatmap" pt="xs">
-          {data && <ProbabilityHeatmap page={data} initialBasis={basis} onOpen={setOpen} />}
+          <ProbabilityHeatmap labId={labId} runId={runId} initialBasis={basis} onOpenUnknown={openSample} />
         </Tabs.Panel>
         <Tabs.Panel value="table" pt="xs">
           <DataTable<AssignmentRow>

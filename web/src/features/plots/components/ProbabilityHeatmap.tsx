@@ -1,19 +1,28 @@
-import { SegmentedControl, Stack, Text } from '@mantine/core';
+import { Alert, Loader, SegmentedControl, Stack, Text } from '@mantine/core';
 import { useState } from 'react';
-import type { AssignmentRow, AssignmentsPage } from '@provenote/shared/schemas';
-import { heatmapTrace, type ProbabilityBasis } from '../model/heatmap';
+import { errorMessage } from '../../../app/api-client';
+import { useProbabilityMap } from '../api/probability-map';
+import { heatmapHeight, heatmapLayout, heatmapTrace, type ProbabilityBasis } from '../model/heatmap';
 import { Chart } from './Chart';
 
 interface Props {
-  page: AssignmentsPage;
+  labId: string;
+  runId: string;
   initialBasis: ProbabilityBasis;
-  onOpen: (row: AssignmentRow) => void;
+  /** Called with the sample id of a clicked row. */
+  onOpenUnknown: (sampleId: string) => void;
 }
 
-/** Probabilities of the unknowns on the current results page for every group; a click opens the sample. */
-export function ProbabilityHeatmap({ page, initialBasis, onOpen }: Props) {
+const count = new Intl.NumberFormat();
+
+/** Probabilities of every unknown of the run for every group; a click opens the sample. */
+export function ProbabilityHeatmap({ labId, runId, initialBasis, onOpenUnknown }: Props) {
   const [basis, setBasis] = useState<ProbabilityBasis>(initialBasis);
-  if (page.rows.length === 0) return <Text size="sm">No unknowns on this page to draw.</Text>;
+  const map = useProbabilityMap(labId, runId);
+  if (map.isPending) return <Loader size="sm" aria-label="Loading the heat map" />;
+  if (map.isError) return <Alert color="red">Could not load the heat map: {errorMessage(map.error)}</Alert>;
+  if (map.data.rows.length === 0) return <Text size="sm">This run has no unknowns to draw.</Text>;
+  const { total, stride, rows } = map.data;
   return (
     <Stack gap="xs">
       <SegmentedControl
@@ -29,16 +38,18 @@ export function ProbabilityHeatmap({ page, initialBasis, onOpen }: Props) {
       <Chart
         label="Membership probability of each unknown for each group"
         filename="membership-probabilities"
-        data={[heatmapTrace(page, basis)]}
-        layout={{ yaxis: { autorange: 'reversed', title: { text: 'Unknown' } }, xaxis: { title: { text: 'Group' } } }}
-        height={Math.max(320, 18 * page.rows.length + 120)}
+        data={[heatmapTrace(map.data, basis)]}
+        layout={heatmapLayout(map.data)}
+        height={heatmapHeight(map.data)}
         onPointClick={(point) => {
-          const row = page.rows.find((r) => r.sampleId === point.y);
-          if (row) onOpen(row);
+          if (typeof point.y === 'string') onOpenUnknown(point.y);
         }}
       />
       <Text size="xs" c="dimmed">
-        The rows are the unknowns on the results page shown in the table (its filters and sorting apply).
+        {stride === 1
+          ? `All ${count.format(total)} unknowns of the run, grouped by their best group and sorted by probability within it.`
+          : `${count.format(rows.length)} of the run's ${count.format(total)} unknowns: grouped by best group and sorted by probability, then every ${stride}th drawn, so each group keeps its share. Search the table for any other sample.`}{' '}
+        A probability is statistical evidence of membership, not proof of origin.
       </Text>
     </Stack>
   );

@@ -1,57 +1,41 @@
 import { describe, expect, it } from 'vitest';
-import type { AssignmentsPage } from '@provenote/shared/schemas';
-import { heatmapTrace } from './heatmap';
+import type { ProbabilityMap } from '@provenote/shared/schemas';
+import { heatmapHeight, heatmapLayout, heatmapTrace } from './heatmap';
 
-const page: AssignmentsPage = {
+const map: ProbabilityMap = {
+  runId: '7b0a3c52-1d4e-4f6a-9b2c-3e5d7f9a1b2c',
+  groups: ['North', 'South'],
   total: 2,
-  page: 1,
-  pageSize: 50,
-  groups: [
-    { name: 'North', n: 20, effectiveN: 20 },
-    { name: 'South', n: 18, effectiveN: 18 },
-  ],
-  variables: ['ln(Zr)'],
+  stride: 1,
   rows: [
-    {
-      sampleId: 'U1',
-      verdict: 'assigned',
-      group: 'North',
-      probability: 0.6,
-      runnerUp: 'South',
-      runnerUpProbability: 0.01,
-      d2: [1, 9],
-      pChi2: [0.55, 0.02],
-      pHotelling: [0.6, 0.01],
-      contributions: [1],
-    },
-    {
-      sampleId: 'U2',
-      verdict: 'unassigned',
-      group: 'South',
-      probability: 0.03,
-      runnerUp: 'North',
-      runnerUpProbability: 0.001,
-      d2: [12, 7],
-      pChi2: [0.002, 0.04],
-      pHotelling: [0.001, 0.03],
-      contributions: [7],
-    },
+    { sampleId: 'U1', group: 'North', verdict: 'assigned', pChi2: [0.55, 0.02], pHotelling: [0.6, 0.01] },
+    { sampleId: 'U2', group: 'South', verdict: 'unassigned', pChi2: [0.001, 0.03], pHotelling: [0.0005, 0.04] },
   ],
 };
 
 describe('heatmapTrace', () => {
-  it('lays out unknowns by groups with the probabilities of the chosen basis, as the run gave them', () => {
-    const trace = heatmapTrace(page, 'hotelling');
+  it('draws the chosen basis, a row per unknown and a column per group', () => {
+    const trace = heatmapTrace(map, 'hotelling');
     expect(trace.x).toEqual(['North', 'South']);
     expect(trace.y).toEqual(['U1', 'U2']);
     expect(trace.z).toEqual([
       [0.6, 0.01],
-      [0.001, 0.03],
+      [0.0005, 0.04],
     ]);
-    expect(heatmapTrace(page, 'chi2').z[1]).toEqual([0.002, 0.04]);
+    expect(heatmapTrace(map, 'chi2').z[1]).toEqual([0.001, 0.03]);
   });
 
-  it('keeps the colour scale on 0–1 so pages compare', () => {
-    expect(heatmapTrace(page, 'chi2')).toMatchObject({ zmin: 0, zmax: 1 });
+  it('names the sample and its probability for every group on hover', () => {
+    const trace = heatmapTrace(map, 'chi2');
+    expect(trace.hovertemplate).toContain('Sample %{y}');
+    expect(trace.customdata[0]).toEqual(['North: 0.5500<br>South: 0.0200', 'North: 0.5500<br>South: 0.0200']);
+  });
+
+  it('hides the sample ids of a long map and keeps it within a screen', () => {
+    const long = { ...map, rows: Array.from({ length: 400 }, (_, i) => ({ ...map.rows[0], sampleId: `U${i}` })) };
+    expect(heatmapLayout(map).yaxis.showticklabels).toBe(true);
+    expect(heatmapLayout(long).yaxis.showticklabels).toBe(false);
+    expect(heatmapHeight(long)).toBe(640);
+    expect(heatmapHeight(map)).toBe(320);
   });
 });
