@@ -171,7 +171,7 @@ export function AssignmentsTable({ labId, studyId, runId, canOverride, basis, el
               },
               { accessor: 'sampleId', title: 'Sample', sortable: true },
               { accessor: 'verdict', title: 'Verdict', sortable: true },
-              { accessor: 'group', title: 'Best group', sortable: true },
+              { accessor: 'group', title: 'Best group', sortable: true, noWrap: true },
               {
                 accessor: 'probability',
                 title: 'Probability',
