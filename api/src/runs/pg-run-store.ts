@@ -103,9 +103,9 @@ export class PgRunStore implements RunStore {
       const m = results.members;
       await manager.query(
         `INSERT INTO run_check_members (run_id, ordinal, sample_id, group_name, d2, d2_loo, p_chi2_loo,
-           p_hotelling_loo, outcome, best_group)
+           p_hotelling_loo, outcome, best_group, robust_d2, robust_outlier)
          SELECT $1, * FROM unnest($2::int[], $3::text[], $4::text[], $5::float8[], $6::float8[], $7::float8[],
-           $8::float8[], $9::text[], $10::text[])`,
+           $8::float8[], $9::text[], $10::text[], $11::float8[], $12::bool[])`,
         [
           runId,
           Array.from(m.ordinals),
@@ -117,6 +117,8 @@ export class PgRunStore implements RunStore {
           Array.from(m.pHotellingLeaveOneOut),
           m.outcomes,
           m.bestGroups,
+          m.robustD2,
+          m.robustFlagged,
         ],
       );
       const pairs = results.pairs;

@@ -36,6 +36,14 @@ export class RunCheckMemberEntity {
   @Column({ name: 'best_group', type: 'text' })
   bestGroup: string;
 
+  /** Robust D² against the group's FAST-MCD fit; null when the group was too small for one. */
+  @Column({ name: 'robust_d2', type: 'float8', nullable: true })
+  robustD2: number | null;
+
+  /** Robust D² above χ²_p(0.975); null when the group has no robust fit. */
+  @Column({ name: 'robust_outlier', type: 'boolean', nullable: true })
+  robustOutlier: boolean | null;
+
   @ManyToOne('RunEntity', { onDelete: 'CASCADE' })
   @JoinColumn({ name: 'run_id' })
   run: RunEntity;

@@ -28,6 +28,7 @@ export class CheckResultsService {
     const where: FindOptionsWhere<RunCheckMemberEntity> = { runId: run.id };
     if (query.outcome) where.outcome = query.outcome;
     if (query.group) where.groupName = query.group;
+    if (query.flaggedByRobustFit !== undefined) where.robustOutlier = query.flaggedByRobustFit;
     const [members, total] = await this.dataSource.getRepository(RunCheckMemberEntity).findAndCount({
       where,
       order: { ordinal: 'ASC' },
@@ -50,6 +51,7 @@ export class CheckResultsService {
       returnedToOwnGroup: summary.returnedToOwnGroup,
       memberCount: summary.members,
       kruskalWallis: summary.kruskalWallis,
+      robustFit: summary.robustFit ?? [],
       pairs: pairs.map(({ groupA, groupB, t2, f, df1, df2, p }) => ({ groupA, groupB, t2, f, df1, df2, p })),
       members: {
         total,
@@ -64,6 +66,8 @@ export class CheckResultsService {
           pHotellingLeaveOneOut: m.pHotellingLeaveOneOut,
           outcome: m.outcome,
           bestGroup: m.bestGroup,
+          robustD2: m.robustD2,
+          flaggedByRobustFit: m.robustOutlier,
         })),
       },
     });

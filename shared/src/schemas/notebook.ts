@@ -138,6 +138,8 @@ export const checkResultsQuerySchema = z.object({
   pageSize: z.coerce.number().int().min(1).max(200).default(CHECK_MEMBERS_PAGE_SIZE),
   outcome: memberOutcomeSchema.optional(),
   group: z.string().min(1).optional(),
+  /** "true": only the members the robust fit flags as outlying. */
+  flaggedByRobustFit: z.stringbool().optional(),
 });
 export type CheckResultsQuery = z.infer<typeof checkResultsQuerySchema>;
 
@@ -151,6 +153,18 @@ export const checkResultsSchema = z.object({
   returnedToOwnGroup: z.number().int(),
   memberCount: z.number().int(),
   kruskalWallis: z.array(z.object({ variable: z.string(), h: z.number(), df: z.number().int(), p: z.number() })),
+  /** Per group, the FAST-MCD fit behind the robust flags; empty for runs made before robust flags were kept. */
+  robustFit: z.array(
+    z.object({
+      group: z.string(),
+      seed: z.number().int(),
+      /** χ²_p(0.975); null when the group had no robust fit. */
+      cutoff: z.number().nullable(),
+      flagged: z.number().int().nullable(),
+      /** Why the group has no robust fit (too few members, say); null when it has one. */
+      note: z.string().nullable(),
+    }),
+  ),
   pairs: z.array(
     z.object({
       groupA: z.string(),
@@ -176,6 +190,10 @@ export const checkResultsSchema = z.object({
         pHotellingLeaveOneOut: z.number(),
         outcome: memberOutcomeSchema,
         bestGroup: z.string(),
+        /** Robust D² against the group's FAST-MCD fit; null when the group has no robust fit. */
+        robustD2: z.number().nullable(),
+        /** Robust D² above χ²_p(0.975). */
+        flaggedByRobustFit: z.boolean().nullable(),
       }),
     ),
   }),

@@ -1,12 +1,74 @@
 import {
   DEFAULT_MCD_SEED,
+  EngineError,
+  fastMcd,
   fitGroup,
   kruskalWallisByVariable,
   leaveOneOutCheck,
   pairwiseHotelling,
+  type GroupModel,
 } from '@provenote/shared';
 import type { RunProcessor } from '../queue/run-worker';
 import { prepareSamples, splitByGroup } from './prepare-samples';
+
+/** One group's robust fit as the card reports it: distances and flags, or why there are none. */
+export interface RobustFitOutcome {
+  readonly group: string;
+  readonly seed: number;
+  /** Robust D² per member (in the group's row order), or null when the group was not fitted. */
+  readonly d2: number[] | null;
+  readonly flagged: boolean[] | null;
+  /** χ²_p(0.975), or null when not fitted. */
+  readonly cutoff: number | null;
+  /** Why a group has no robust fit, in words for the card. */
+  readonly note: string | null;
+}
+
+/**
+ * Fewest members for a robust fit: 2(p + 1), so that the MCD subset (about half the group) still holds
+ * more than p + 1 members and an outlying member can fall outside it. Fewer give a fit that says little.
+ */
+export const minimumRobustFitSize = (p: number) => 2 * (p + 1);
+
+/**
+ * FAST-MCD per group whatever covariance the run uses, so the check can name members the classical fit
+ * hides. A member is flagged when its robust D² exceeds χ²_p(0.975), the reweighting cut-off of
+ * Rousseeuw & Van Driessen (1999, Technometrics 41:212); the engine's fit already applies it, so the
+ * flag is exactly "left out of the reweighted estimate". A run with MCD covariance reuses its fit.
+ */
+export function robustFit(model: GroupModel, rows: number[][], variables: string[], seed: number): RobustFitOutcome {
+  const p = variables.length;
+  const minimum = minimumRobustFitSize(p);
+  const none = (note: string): RobustFitOutcome => ({
+    group: model.name,
+    seed,
+    d2: null,
+    flagged: null,
+    cutoff: null,
+    note,
+  });
+  if (rows.length < minimum) {
+    return none(
+      `${rows.length} members is too few for a robust fit with ${p} coordinates: it needs at least ${minimum}.`,
+    );
+  }
+  try {
+    const mcd = model.mcd ?? fastMcd(rows, { seed, context: { group: model.name, variables } });
+    return {
+      group: model.name,
+      seed: mcd.seed,
+      d2: mcd.distances,
+      flagged: mcd.distances.map((d2) => d2 > mcd.cutoff),
+      cutoff: mcd.cutoff,
+      note: null,
+    };
+  } catch (error) {
+    // A group the classical fit accepts can still defeat the MCD (half its members on a hyperplane):
+    // the check goes on, and the card says why this group has no robust fit.
+    if (error instanceof EngineError) return none(`No robust fit: ${error.message}.`);
+    throw error;
+  }
+}
 
 /**
  * Group check: every member left out of its own group and judged against all groups, the pairwise
@@ -35,6 +97,10 @@ export const groupCheckProcessor: RunProcessor = async ({ run, store, checkpoint
     groups.map((group) => group.rows),
     prepared.variables,
   );
+  await checkpoint(0.8, 'robust fit per group');
+  const seed = fitOptions.seed;
+  const robust = models.map((model, g) => robustFit(model, groups[g].rows, prepared.variables, seed));
+  const robustOf = new Map(robust.map((r) => [r.group, r]));
   const ordinalOf = new Map(groups.map((group) => [group.name, group.ordinals]));
   const ordinals = Int32Array.from(check.members, (member) => ordinalOf.get(member.group)![member.index]);
   await checkpoint(0.85, 'saving results');
@@ -51,6 +117,8 @@ export const groupCheckProcessor: RunProcessor = async ({ run, store, checkpoint
       pHotellingLeaveOneOut: Float64Array.from(check.members, (member) => member.pHotellingLeaveOneOut),
       outcomes: check.members.map((member) => member.outcome),
       bestGroups: check.members.map((member) => member.verdict.group),
+      robustD2: check.members.map((member) => robustOf.get(member.group)!.d2?.[member.index] ?? null),
+      robustFlagged: check.members.map((member) => robustOf.get(member.group)!.flagged?.[member.index] ?? null),
     },
     pairs: pairs.map((pair) => ({ ...pair })),
     summary: {
@@ -58,6 +126,13 @@ export const groupCheckProcessor: RunProcessor = async ({ run, store, checkpoint
       returnedToOwnGroup: check.returnedToOwnGroup,
       members: ordinals.length,
       kruskalWallis: screening,
+      robustFit: robust.map(({ group, seed, cutoff, note, flagged }) => ({
+        group,
+        seed,
+        cutoff,
+        note,
+        flagged: flagged ? flagged.filter(Boolean).length : null,
+      })),
     },
   });
 };

@@ -65,6 +65,10 @@ export interface GroupCheckResults {
     readonly outcomes: string[];
     /** The best group of the left-out member's verdict. */
     readonly bestGroups: string[];
+    /** Robust D² against the group's FAST-MCD fit, null where the group was too small for one. */
+    readonly robustD2: (number | null)[];
+    /** Robust D² above χ²_p(0.975); null where the group has no robust fit. */
+    readonly robustFlagged: (boolean | null)[];
   };
   readonly pairs: { groupA: string; groupB: string; t2: number; f: number; df1: number; df2: number; p: number }[];
   /** Small per-run tables kept as JSON: the confusion counts and the Kruskal–Wallis screening. */
