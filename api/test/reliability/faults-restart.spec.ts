@@ -71,7 +71,10 @@ describe('restarts with runs queued or in progress', () => {
   afterAll(async () => {
     for (const worker of workers) worker.kill('SIGKILL');
     await Promise.all(workers.map(exitOf));
-    await testApp.close();
+    // testApp.close() would close the first api, already closed by the restart, and leave the current one (and
+    // its queue's Redis connections) open.
+    await testApp.app.close();
+    await testApp.database.drop();
   });
 
   it('computes the runs queued before an api restart, each once', async () => {
