@@ -24,7 +24,4 @@ module.exports = {
   globalSetup: '<rootDir>/test/global-setup.cjs',
   globalTeardown: '<rootDir>/test/global-teardown.cjs',
   testTimeout: 30000,
-  // The fault tests restart servers and processes; a handle one of them leaves behind must not keep Jest
-  // (which runs in band on a 2-core machine) from exiting after every result has been written.
-  forceExit: true,
 };
