@@ -51,7 +51,7 @@ export class CheckResultsService {
       returnedToOwnGroup: summary.returnedToOwnGroup,
       memberCount: summary.members,
       kruskalWallis: summary.kruskalWallis,
-      robustFit: summary.robustFit ?? [],
+      robustFit: summary.robustFit,
       pairs: pairs.map(({ groupA, groupB, t2, f, df1, df2, p }) => ({ groupA, groupB, t2, f, df1, df2, p })),
       members: {
         total,

@@ -154,17 +154,19 @@ export const checkResultsSchema = z.object({
   memberCount: z.number().int(),
   kruskalWallis: z.array(z.object({ variable: z.string(), h: z.number(), df: z.number().int(), p: z.number() })),
   /** Per group, the FAST-MCD fit behind the robust flags; empty for runs made before robust flags were kept. */
-  robustFit: z.array(
-    z.object({
-      group: z.string(),
-      seed: z.number().int(),
-      /** χ²_p(0.975); null when the group had no robust fit. */
-      cutoff: z.number().nullable(),
-      flagged: z.number().int().nullable(),
-      /** Why the group has no robust fit (too few members, say); null when it has one. */
-      note: z.string().nullable(),
-    }),
-  ),
+  robustFit: z
+    .array(
+      z.object({
+        group: z.string(),
+        seed: z.number().int(),
+        /** χ²_p(0.975); null when the group had no robust fit. */
+        cutoff: z.number().nullable(),
+        flagged: z.number().int().nullable(),
+        /** Why the group has no robust fit (too few members, say); null when it has one. */
+        note: z.string().nullable(),
+      }),
+    )
+    .default([]),
   pairs: z.array(
     z.object({
       groupA: z.string(),
@@ -191,9 +193,9 @@ export const checkResultsSchema = z.object({
         outcome: memberOutcomeSchema,
         bestGroup: z.string(),
         /** Robust D² against the group's FAST-MCD fit; null when the group has no robust fit. */
-        robustD2: z.number().nullable(),
+        robustD2: z.number().nullable().default(null),
         /** Robust D² above χ²_p(0.975). */
-        flaggedByRobustFit: z.boolean().nullable(),
+        flaggedByRobustFit: z.boolean().nullable().default(null),
       }),
     ),
   }),

@@ -13,6 +13,7 @@ export const checkResultsQuery = (labId: string, studyId: string, runId: string,
       if (filter.pageSize) params.set('pageSize', String(filter.pageSize));
       if (filter.outcome) params.set('outcome', filter.outcome);
       if (filter.group) params.set('group', filter.group);
+      if (filter.flaggedByRobustFit) params.set('flaggedByRobustFit', 'true');
       return apiRequest(`/labs/${labId}/studies/${studyId}/check-results?${params}`, checkResultsSchema, { signal });
     },
   });

@@ -1,4 +1,4 @@
-import { Alert, Group, Select, Stack, Table, Text, Title } from '@mantine/core';
+import { Alert, Badge, Button, Checkbox, Group, List, Select, Stack, Table, Text, Title } from '@mantine/core';
 import { DataTable } from 'mantine-datatable';
 import 'mantine-datatable/styles.css';
 import { useState } from 'react';
@@ -16,16 +16,26 @@ const fmtP = (p: number) => (p < 0.001 ? p.toExponential(2) : p.toFixed(3));
 const PAGE_SIZES = [15, 50, 100];
 
 /** Leave-one-out per member, the confusion table, the separation of each pair and the per-element screening. */
-export function CheckResults({ labId, studyId, runId }: { labId: string; studyId: string; runId: string }) {
+interface Props {
+  labId: string;
+  studyId: string;
+  runId: string;
+  /** Given to those who may exclude: each row offers to start an exclusion of its member. */
+  onExclude?: (member: { sampleId: string; group: string }) => void;
+}
+
+export function CheckResults({ labId, studyId, runId, onExclude }: Props) {
   const [page, setPage] = useState(1);
   const [pageSize, setPageSize] = useState(PAGE_SIZES[0]);
   const [outcome, setOutcome] = useState<MemberOutcome | null>(null);
   const [group, setGroup] = useState<string | null>(null);
+  const [flaggedOnly, setFlaggedOnly] = useState(false);
   const results = useCheckResults(labId, studyId, runId, {
     page,
     pageSize,
     outcome: outcome ?? undefined,
     group: group ?? undefined,
+    flaggedByRobustFit: flaggedOnly || undefined,
   });
   if (results.isError) return <Alert color="red">Could not load the group check: {errorMessage(results.error)}</Alert>;
   const data = results.data;
@@ -58,7 +68,17 @@ export function CheckResults({ labId, studyId, runId }: { labId: string; studyId
           }}
           clearable
         />
+        <Checkbox
+          label="Flagged by robust fit"
+          description="Only members far from the bulk of their group"
+          checked={flaggedOnly}
+          onChange={(e) => {
+            setPage(1);
+            setFlaggedOnly(e.currentTarget.checked);
+          }}
+        />
       </Group>
+      <RobustFitNotes data={data} />
       <DataTable
         aria-label="Leave-one-out results per member"
         withTableBorder
@@ -101,6 +121,43 @@ export function CheckResults({ labId, studyId, runId }: { labId: string; studyId
             textAlign: 'right',
             render: (r) => fmtP(r.pChi2LeaveOneOut),
           },
+          {
+            accessor: 'flaggedByRobustFit',
+            title: 'Robust fit',
+            render: (r) =>
+              r.robustD2 === null ? (
+                <Text size="xs" c="dimmed">
+                  none
+                </Text>
+              ) : (
+                <Group gap={6} wrap="nowrap">
+                  <Text size="sm">D² {r.robustD2.toFixed(2)}</Text>
+                  {r.flaggedByRobustFit && (
+                    <Badge color="orange" variant="light" miw="max-content">
+                      Flagged
+                    </Badge>
+                  )}
+                </Group>
+              ),
+          },
+          ...(onExclude
+            ? [
+                {
+                  accessor: 'exclude',
+                  title: '',
+                  render: (r: Row) => (
+                    <Button
+                      size="compact-xs"
+                      variant="subtle"
+                      aria-label={`Exclude ${r.sampleId} from ${r.group}`}
+                      onClick={() => onExclude({ sampleId: r.sampleId, group: r.group })}
+                    >
+                      Exclude…
+                    </Button>
+                  ),
+                },
+              ]
+            : []),
         ]}
       />
       <Title order={4}>Separation of the groups (two-sample Hotelling T²)</Title>
@@ -150,6 +207,33 @@ export function CheckResults({ labId, studyId, runId }: { labId: string; studyId
           ))}
         </Table.Tbody>
       </Table>
+    </Stack>
+  );
+}
+
+type Row = Results['members']['rows'][number];
+
+/** What the robust flags mean, and which groups have none and why. */
+function RobustFitNotes({ data }: { data: Results }) {
+  if (data.robustFit.length === 0) return null;
+  const unfitted = data.robustFit.filter((r) => r.note !== null);
+  const seeds = [...new Set(data.robustFit.map((r) => r.seed))].join(', ');
+  return (
+    <Stack gap={4}>
+      <Text size="xs" c="dimmed">
+        Robust fit: each group is refitted by FAST-MCD (seed {seeds}); a member is flagged when its robust D² exceeds
+        the χ² 97.5 % point. A flag is statistical evidence that a member lies apart from its group, not proof that its
+        source is wrong: check its record before excluding it.
+      </Text>
+      {unfitted.length > 0 && (
+        <List size="sm">
+          {unfitted.map((r) => (
+            <List.Item key={r.group}>
+              {r.group}: {r.note}
+            </List.Item>
+          ))}
+        </List>
+      )}
     </Stack>
   );
 }

@@ -1,5 +1,5 @@
 import { ActionIcon, Button, Group, Select, Stack, Table, Text, Textarea } from '@mantine/core';
-import { useState } from 'react';
+import { useRef, useState } from 'react';
 import type { MemberExclusion, StepParameters } from '@provenote/shared/schemas';
 import { CheckResults } from '../CheckResults';
 import type { CardProps } from './card-props';
@@ -34,6 +34,7 @@ export function CheckCard({
   const saved = (step.parameters as StepParameters['check'] | null)?.exclusions ?? [];
   const [member, setMember] = useState<string | null>(null);
   const [reason, setReason] = useState('');
+  const reasonField = useRef<HTMLTextAreaElement>(null);
   const editable = !readOnly && mayExclude;
   const save = (exclusions: MemberExclusion[]) => onSave({ exclusions });
   const chosen = memberOptions.find((o) => o.value === member);
@@ -54,7 +55,20 @@ export function CheckCard({
         </Group>
       )}
       {step.runId && (step.status === 'current' || step.status === 'stale') && (
-        <CheckResults labId={labId} studyId={study.id} runId={step.runId} />
+        <CheckResults
+          labId={labId}
+          studyId={study.id}
+          runId={step.runId}
+          onExclude={
+            editable
+              ? ({ sampleId, group }) => {
+                  setMember(`${group}\u0000${sampleId}`);
+                  // The reason is the part that needs a person: take them straight to it.
+                  reasonField.current?.focus();
+                }
+              : undefined
+          }
+        />
       )}
       <Text fw={500} size="sm">
         Excluded members ({saved.length})
@@ -107,6 +121,7 @@ export function CheckCard({
             clearable
           />
           <Textarea
+            ref={reasonField}
             label="Reason"
             description="Kept in the study's record, e.g. a field note or a lab log entry."
             value={reason}
