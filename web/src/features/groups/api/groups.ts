@@ -4,6 +4,7 @@ import {
   referenceGroupSchema,
   type CreateGroup,
   type CreateGroupVersion,
+  type UpdateGroup,
 } from '@provenote/shared/schemas';
 import { apiRequest } from '../../../app/api-client';
 
@@ -58,6 +59,15 @@ export function useApproveGroupVersion(labId: string) {
         method: 'POST',
         body: {},
       }),
+    onSuccess: invalidate,
+  });
+}
+
+export function useUpdateGroup(labId: string, groupId: string) {
+  const invalidate = useInvalidateGroups(labId);
+  return useMutation({
+    mutationFn: (input: UpdateGroup) =>
+      apiRequest(`/labs/${labId}/groups/${groupId}`, referenceGroupSchema, { method: 'PATCH', body: input }),
     onSuccess: invalidate,
   });
 }

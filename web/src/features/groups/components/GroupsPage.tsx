@@ -2,11 +2,12 @@ import { Alert, Badge, Button, Card, Group, Loader, Select, Stack, Table, Text, 
 import { useDisclosure } from '@mantine/hooks';
 import { useState } from 'react';
 import { useParams } from 'react-router-dom';
-import type { ReferenceGroup } from '@provenote/shared/schemas';
+import type { Dataset, ReferenceGroup } from '@provenote/shared/schemas';
 import { errorMessage } from '../../../app/api-client';
 import { useMe } from '../../../app/session';
 import { useDatasetList } from '../../notebook/api/datasets';
 import { useApproveGroupVersion, useGroupList, useGroupsFromColumn } from '../api/groups';
+import { EditGroupModal } from './EditGroupModal';
 import { NewGroupModal } from './NewGroupModal';
 
 const dateFormat = new Intl.DateTimeFormat(undefined, { dateStyle: 'medium' });
@@ -74,20 +75,36 @@ export function GroupsPage() {
         </Alert>
       )}
       {groups.data?.groups.map((group) => (
-        <GroupCard key={group.id} labId={labId} group={group} mayApprove={mayEdit} />
+        <GroupCard key={group.id} labId={labId} group={group} mayEdit={mayEdit} datasets={references} />
       ))}
     </Stack>
   );
 }
 
-function GroupCard({ labId, group, mayApprove }: { labId: string; group: ReferenceGroup; mayApprove: boolean }) {
+interface GroupCardProps {
+  labId: string;
+  group: ReferenceGroup;
+  mayEdit: boolean;
+  datasets: Dataset[];
+}
+
+function GroupCard({ labId, group, mayEdit, datasets }: GroupCardProps) {
   const approve = useApproveGroupVersion(labId);
+  const [editing, { open, close }] = useDisclosure(false);
   return (
     <Card withBorder component="section" aria-label={`Group ${group.name}`}>
       <Stack gap="xs">
-        <Title order={3} size="h4">
-          {group.name}
-        </Title>
+        <Group justify="space-between">
+          <Title order={3} size="h4">
+            {group.name}
+          </Title>
+          {mayEdit && (
+            <Button size="compact-sm" variant="default" onClick={open} aria-label={`Edit ${group.name}`}>
+              Edit
+            </Button>
+          )}
+        </Group>
+        {editing && <EditGroupModal labId={labId} group={group} datasets={datasets} onClose={close} />}
         {group.description && <Text size="sm">{group.description}</Text>}
         <Table>
           <Table.Thead>
@@ -119,7 +136,7 @@ function GroupCard({ labId, group, mayApprove }: { labId: string; group: Referen
                         by {version.approvedBy ?? 'a former member'}
                       </Text>
                     </Stack>
-                  ) : mayApprove ? (
+                  ) : mayEdit ? (
                     <Button
                       size="compact-sm"
                       variant="light"
