@@ -109,15 +109,17 @@ const tooManyColumns = () =>
       'split the file into narrower files (sample id plus a share of the columns) and import each',
   );
 
+const isApiPath = (path: string) => path === `/${API_PREFIX}` || path.startsWith(`/${API_PREFIX}/`);
+
 /** The built single-page app: static assets, and index.html for every other non-API GET. */
 function serveWebApp(app: NestExpressApplication, dist: string) {
   const index = join(dist, 'index.html');
   if (!existsSync(index)) throw new Error(`WEB_DIST has no index.html: ${dist} (run npm run build -w web)`);
-  app.use(express.static(dist, { index: false, maxAge: '1h', immutable: false }));
+  const assets = express.static(dist, { index: false, maxAge: '1h', immutable: false });
+  // API requests skip the file lookup the static handler would make for each of them.
+  app.use((req: Request, res: Response, next: NextFunction) => (isApiPath(req.path) ? next() : assets(req, res, next)));
   app.use((req: Request, res: Response, next: NextFunction) => {
-    if (req.method !== 'GET' || req.path === `/${API_PREFIX}` || req.path.startsWith(`/${API_PREFIX}/`)) {
-      return next();
-    }
+    if (req.method !== 'GET' || isApiPath(req.path)) return next();
     res.setHeader('Cache-Control', 'no-cache');
     res.sendFile(index);
   });
