@@ -71,7 +71,7 @@ export class PgBundleSource implements BundleSource {
     const checkRunId = step('check')?.run_id;
     if (!checkRunId) throw new BundleSourceError('the study has no group check run');
 
-    const { groups, assignments } = await this.assignments(db, head.source_run_id);
+    const { groups, variables, assignments } = await this.assignments(db, head.source_run_id);
     return {
       provenoteVersion: APP_VERSION,
       createdAt: head.created_at.toISOString(),
@@ -86,6 +86,7 @@ export class PgBundleSource implements BundleSource {
       unknowns: await this.runs.loadSamples(head.source_run_id, 'unknown'),
       groupVersions: await this.groupVersions(db, step('groups')?.parameters ?? {}),
       groups,
+      variables,
       assignments,
       overrides: (
         (await db.query(
@@ -141,13 +142,13 @@ export class PgBundleSource implements BundleSource {
   }
 
   private async assignments(db: EntityManager, runId: string) {
-    const groups = (
-      (await db.query(`SELECT name FROM run_groups WHERE run_id = $1 ORDER BY group_index`, [runId])) as {
-        name: string;
-      }[]
-    ).map((row) => row.name);
+    const groupRows = (await db.query(`SELECT name, variables FROM run_groups WHERE run_id = $1 ORDER BY group_index`, [
+      runId,
+    ])) as { name: string; variables: string[] }[];
+    const groups = groupRows.map((row) => row.name);
     const rows = (await db.query(
-      `SELECT sample_id, verdict, group_name, probability, runner_up, runner_up_probability, d2, p_chi2, p_hotelling
+      `SELECT sample_id, verdict, group_name, probability, runner_up, runner_up_probability, d2, p_chi2, p_hotelling,
+         contributions
        FROM run_assignments WHERE run_id = $1 ORDER BY ordinal`,
       [runId],
     )) as {
@@ -160,6 +161,7 @@ export class PgBundleSource implements BundleSource {
       d2: number[];
       p_chi2: number[];
       p_hotelling: number[];
+      contributions: number[];
     }[];
     const assignments = rows.map((row): StoredAssignment => ({
       sampleId: row.sample_id,
@@ -171,8 +173,9 @@ export class PgBundleSource implements BundleSource {
       d2: row.d2,
       pChi2: row.p_chi2,
       pHotelling: row.p_hotelling,
+      contributions: row.contributions,
     }));
-    return { groups, assignments };
+    return { groups, variables: groupRows[0]?.variables ?? [], assignments };
   }
 
   private async check(db: EntityManager, runId: string) {

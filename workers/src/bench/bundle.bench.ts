@@ -69,6 +69,7 @@ function benchContent(): BundleContent {
         finalGroup: a.verdict === 'assigned' ? a.group : null,
         overrideReason: null,
       })),
+      contributions: run.contributions,
       members: run.members,
       separation: run.separation,
     },

@@ -72,6 +72,14 @@ export interface AssignmentRow {
   readonly overrideReason: string | null;
 }
 
+/** One unknown's share of D² to its best group from one distance coordinate; the shares sum to D². */
+export interface ContributionRow {
+  readonly sampleId: string;
+  readonly group: string;
+  readonly variable: string;
+  readonly contribution: number;
+}
+
 export interface MemberRow {
   readonly sampleId: string;
   readonly group: string;
@@ -94,6 +102,7 @@ export interface SeparationRow {
 export interface BundleResults {
   readonly distances: readonly DistanceRow[];
   readonly assignments: readonly AssignmentRow[];
+  readonly contributions: readonly ContributionRow[];
   readonly members: readonly MemberRow[];
   readonly separation: readonly SeparationRow[];
 }

@@ -10,6 +10,7 @@ export const RAW_INPUTS_DIR = 'inputs/raw';
 export const PREPARED_PATH = 'inputs/prepared.csv';
 export const DISTANCES_PATH = 'results/distances.csv';
 export const ASSIGNMENTS_PATH = 'results/assignments.csv';
+export const CONTRIBUTIONS_PATH = 'results/contributions.csv';
 export const MEMBERS_PATH = 'results/members.csv';
 export const SEPARATION_PATH = 'results/separation.csv';
 
@@ -26,6 +27,7 @@ export const ASSIGNMENTS_COLUMNS = [
   'final_group',
   'override_reason',
 ];
+export const CONTRIBUTIONS_COLUMNS = ['sample_id', 'group', 'variable', 'contribution'];
 export const MEMBERS_COLUMNS = ['sample_id', 'group', 'd2', 'd2_loo', 'p_hotelling_loo', 'verdict_loo'];
 export const SEPARATION_COLUMNS = ['group_a', 'group_b', 't2', 'f', 'df1', 'df2', 'p'];
 export const GROUP_MEMBERS_FILE = 'members.csv';
@@ -128,7 +130,7 @@ export function layOutData(content: BundleContent): { entries: BundleEntry[]; gr
     return { name, version, directory, n, effectiveN, covariance: method };
   });
 
-  const { distances, assignments, members, separation } = content.results;
+  const { distances, assignments, contributions, members, separation } = content.results;
   const csv = (path: string, columns: string[], rows: (string | number | null)[][]) =>
     entries.push({ path, bytes: utf8(toCsv(columns, rows)) });
   csv(
@@ -150,6 +152,11 @@ export function layOutData(content: BundleContent): { entries: BundleEntry[]; gr
       r.finalGroup,
       r.overrideReason,
     ]),
+  );
+  csv(
+    CONTRIBUTIONS_PATH,
+    CONTRIBUTIONS_COLUMNS,
+    contributions.map((r) => [r.sampleId, r.group, r.variable, r.contribution]),
   );
   csv(
     MEMBERS_PATH,

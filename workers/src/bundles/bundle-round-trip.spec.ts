@@ -101,6 +101,7 @@ describe('result bundle: build and verify', () => {
         'groups/setosa/covariance.csv',
         DISTANCES_PATH,
         'results/assignments.csv',
+        'results/contributions.csv',
         'results/members.csv',
         SEPARATION_PATH,
       ]),

@@ -2,6 +2,8 @@ import { assignmentVerdicts, type BundleManifest } from '@provenote/shared';
 import {
   ASSIGNMENTS_COLUMNS,
   ASSIGNMENTS_PATH,
+  CONTRIBUTIONS_COLUMNS,
+  CONTRIBUTIONS_PATH,
   DISTANCES_COLUMNS,
   DISTANCES_PATH,
   MEMBERS_COLUMNS,
@@ -103,6 +105,21 @@ function compareResults(
             finalGroup,
           );
         }
+      },
+    );
+  }
+  const contributions = read(CONTRIBUTIONS_PATH, CONTRIBUTIONS_COLUMNS);
+  if (contributions) {
+    compareKeyed(
+      log,
+      CONTRIBUTIONS_PATH,
+      contributions,
+      ['sample_id', 'variable'],
+      run.contributions,
+      (r) => [r.sampleId, r.variable],
+      (r) => (t, i, where) => {
+        log.text(CONTRIBUTIONS_PATH, `${where}, group`, r.group, t.rows[i][1]);
+        log.cell(CONTRIBUTIONS_PATH, t, i, 'contribution', r.contribution, 'relative');
       },
     );
   }

@@ -1,4 +1,10 @@
-import { applyTransform, type AssignmentParameters, type TransformSpec } from '@provenote/shared';
+import {
+  applyTransform,
+  distanceContributions,
+  type AssignmentParameters,
+  type GroupModel,
+  type TransformSpec,
+} from '@provenote/shared';
 import { checkTable } from '../cli/check-command';
 import { classifyTables } from '../cli/classify-command';
 import { fitReference } from '../cli/fit-reference';
@@ -7,7 +13,14 @@ import type { ClassifyOptions } from '../cli/parse-args';
 import { prepareFeatures } from '../cli/prepare-features';
 import type { Table } from '../cli/read-table';
 import type { AssignmentVerdict } from '@provenote/shared';
-import type { DistanceRow, GroupContent, MemberRow, SampleRole, SeparationRow } from './bundle-content';
+import type {
+  ContributionRow,
+  DistanceRow,
+  GroupContent,
+  MemberRow,
+  SampleRole,
+  SeparationRow,
+} from './bundle-content';
 import { PREPARED_PATH } from './bundle-layout';
 
 /** Prepared (normalised, imputed) values, one row per sample in the order of `elements`. */
@@ -31,6 +44,7 @@ export interface RecomputedRun {
   readonly groups: Omit<GroupContent, 'version'>[];
   readonly distances: DistanceRow[];
   readonly assignments: ComputedAssignment[];
+  readonly contributions: ContributionRow[];
   readonly members: MemberRow[];
   readonly separation: SeparationRow[];
 }
@@ -73,6 +87,31 @@ function tables(prepared: PreparedSamples): { reference: Table; unknowns: Table 
             unknowns.map((s) => [s.sampleId, ...s.values.map(String)]),
           ),
   };
+}
+
+/**
+ * Each unknown's per-coordinate contributions to D² to its best group, from the unknowns' features as
+ * the command-line tool prepares them and the engine's sequential decomposition.
+ */
+function contributionsToBest(
+  unknowns: Table,
+  elements: readonly string[],
+  options: ClassifyOptions,
+  models: readonly GroupModel[],
+  assignments: readonly (string | number | null)[][],
+): ContributionRow[] {
+  const features = prepareFeatures(loadSamples(unknowns, elements, ID, null), options);
+  const byName = new Map(models.map((model) => [model.name, model]));
+  return assignments.flatMap(([sampleId, , group], i) => {
+    const model = byName.get(group as string);
+    if (!model) throw new Error(`the best group "${String(group)}" of ${String(sampleId)} was not fitted`);
+    return distanceContributions(model, features.values[i]).map((contribution, j) => ({
+      sampleId: sampleId as string,
+      group: model.name,
+      variable: features.variables[j],
+      contribution,
+    }));
+  });
 }
 
 /**
@@ -130,6 +169,9 @@ export function recomputeRun(prepared: PreparedSamples, parameters: AssignmentPa
   }));
 
   const classified = unknowns ? classifyTables(reference, unknowns, options) : { distances: [], assignments: [] };
+  const contributions = unknowns
+    ? contributionsToBest(unknowns, prepared.elements, options, fit.models, classified.assignments)
+    : [];
   const checked = checkTable(reference, options);
   const text = (cell: string | number | null) => cell as string;
   const number = (cell: string | number | null) => cell as number;
@@ -153,6 +195,7 @@ export function recomputeRun(prepared: PreparedSamples, parameters: AssignmentPa
         runnerUpProbability: runnerUpProbability === null ? null : number(runnerUpProbability),
       }),
     ),
+    contributions,
     members: checked.members.map(([sampleId, group, d2, d2Loo, pHotellingLoo, verdictLoo]) => ({
       sampleId: text(sampleId),
       group: text(group),

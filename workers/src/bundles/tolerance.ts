@@ -20,6 +20,6 @@ export function withinProbability(expected: number, actual: number): boolean {
 }
 
 export const TOLERANCE_TEXT =
-  `D², T², F, means, covariances, transformed values and robust distances: |a - b| <= ${RELATIVE_TOLERANCE} x max(|a|, |b|) + ${ABSOLUTE_FLOOR} ` +
+  `D², contributions to D², T², F, means, covariances, transformed values and robust distances: |a - b| <= ${RELATIVE_TOLERANCE} x max(|a|, |b|) + ${ABSOLUTE_FLOOR} ` +
   `(relative ${RELATIVE_TOLERANCE}, absolute floor ${ABSOLUTE_FLOOR}); probabilities: |a - b| <= ${PROBABILITY_TOLERANCE} (absolute); ` +
   'counts, degrees of freedom, names and verdicts: exactly equal.';

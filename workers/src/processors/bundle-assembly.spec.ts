@@ -73,6 +73,7 @@ function irisSources(): BundleSources {
     unknowns,
     groupVersions: new Map([['setosa', 2]]),
     groups,
+    variables: ELEMENTS.map((element) => `ln(${element})`),
     assignments: run.assignments.map((a) => {
       const rows = groups.map((g) => run.distances.find((d) => d.sampleId === a.sampleId && d.group === g)!);
       return {
@@ -80,6 +81,7 @@ function irisSources(): BundleSources {
         d2: rows.map((r) => r.d2),
         pChi2: rows.map((r) => r.pChi2),
         pHotelling: rows.map((r) => r.pHotelling),
+        contributions: run.contributions.filter((c) => c.sampleId === a.sampleId).map((c) => c.contribution),
       };
     }),
     overrides: [{ sampleId: 'iris-10', verdict: 'unassigned', group: null, reason: 'petal damaged in transport' }],

@@ -2,6 +2,7 @@ import { ENGINE_VERSION, replaceBelowDetectionLimit, type Measurement } from '@p
 import type {
   AssignmentRow,
   BundleContent,
+  ContributionRow,
   DistanceRow,
   PreparedValue,
   SampleRole,
@@ -73,6 +74,17 @@ function distances(sources: BundleSources): DistanceRow[] {
   );
 }
 
+function contributions(sources: BundleSources): ContributionRow[] {
+  return sources.assignments.flatMap((row) =>
+    sources.variables.map((variable, j) => ({
+      sampleId: row.sampleId,
+      group: row.group,
+      variable,
+      contribution: row.contributions[j],
+    })),
+  );
+}
+
 /**
  * The stored pairs named in the order the groups first appear in the reference input, the command-line
  * tool's order. The group check run orders groups by name; T², F and p do not depend on which group of
@@ -123,6 +135,7 @@ export function bundleContentFromSources(sources: BundleSources): BundleContent 
     results: {
       distances: distances(sources),
       assignments: assignments(sources),
+      contributions: contributions(sources),
       members: [...sources.members],
       separation: separation(sources),
     },

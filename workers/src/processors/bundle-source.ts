@@ -13,6 +13,8 @@ export interface StoredAssignment {
   readonly d2: readonly number[];
   readonly pChi2: readonly number[];
   readonly pHotelling: readonly number[];
+  /** Per distance coordinate (order of `variables`), the contribution to D² to the best group. */
+  readonly contributions: readonly number[];
 }
 
 /** A reviewer's final verdict for one unknown, with the reason it differs from the computed one. */
@@ -43,6 +45,8 @@ export interface BundleSources {
   /** Version number of each reference group the study used, by group name. */
   readonly groupVersions: ReadonlyMap<string, number>;
   readonly groups: readonly string[];
+  /** The coordinates distances were computed in, as the assign run named them. */
+  readonly variables: readonly string[];
   readonly assignments: readonly StoredAssignment[];
   readonly overrides: readonly StoredOverride[];
   readonly members: readonly MemberRow[];

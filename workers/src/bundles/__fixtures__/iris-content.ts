@@ -84,6 +84,7 @@ export function irisContent(options: IrisOptions = {}): BundleContent {
         finalGroup: k === 1 ? null : a.verdict === 'assigned' ? a.group : null,
         overrideReason: k === 1 ? 'flower damaged; measurement doubtful' : null,
       })),
+      contributions: run.contributions,
       members: run.members,
       separation: run.separation,
     },
