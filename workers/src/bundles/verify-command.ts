@@ -27,6 +27,7 @@ export async function runVerifyCommand(args: readonly string[], stdout: Output, 
     return 1;
   }
   const result = await verifyBundle(bytes);
+  for (const note of result.skipped) stdout.write(`skipped: ${note}\n`);
   const study = result.manifest ? ` (${result.manifest.study.title}, ${result.manifest.createdAt})` : '';
   if (result.ok) {
     stdout.write(
