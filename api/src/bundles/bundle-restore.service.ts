@@ -14,6 +14,8 @@ import { readZipEntries, verifyBundle, type BundleVerification } from '@provenot
 import { AuditService } from '../audit/audit.service';
 import type { AuthUser } from '../auth/auth.types';
 import { RunAssignmentEntity } from '../runs/run-assignment.entity';
+import { RunCheckMemberEntity } from '../runs/run-check-member.entity';
+import { RunCheckPairEntity } from '../runs/run-check-pair.entity';
 import { RunGroupEntity } from '../runs/run-group.entity';
 import { writeRunInputs } from '../runs/run-inputs.writer';
 import { RunEntity } from '../runs/run.entity';
@@ -22,6 +24,7 @@ import { StudyStepEntity } from '../studies/study-step.entity';
 import { StudyEntity } from '../studies/study.entity';
 import { BundleEntity } from './bundle.entity';
 import { BundlesService } from './bundles.service';
+import { restoreCheck, restoreContributions, type RestoredCheck } from './restore-check';
 import { restorePlan, type RestorePlan } from './restore-plan';
 
 const NAME_LIMIT = 200;
@@ -51,7 +54,7 @@ function prepareParameters(manifest: BundleManifest) {
 /**
  * Opening a bundle: the same verification as `npm run cli -- verify`, then, only when every file and
  * value matched, the study restored in the lab as a signed-off (so read-only) study with the bundle's
- * assign results and reviewed verdicts. A bundle that does not verify is answered 422 and stores nothing.
+ * group check, assign results and reviewed verdicts. A bundle that does not verify is answered 422 and stores nothing.
  */
 @Injectable()
 export class BundleRestoreService {
@@ -76,11 +79,16 @@ export class BundleRestoreService {
     const manifest = verification.manifest;
     const files = new Map((await readZipEntries(zip)).map((entry) => [entry.name, entry.bytes]));
     const plan = restorePlan(files, manifest);
+    const check = restoreCheck(files, manifest, plan.inputs, plan.variables);
+    const contributions = restoreContributions(files, plan.variables);
     const sha256 = createHash('sha256').update(zip).digest('hex');
     const { studyId, studyName, bundleId } = await this.dataSource.transaction(async (manager) => {
       const study = await this.insertStudy(manager, labId, user, manifest, filename, sha256);
-      const runId = await this.insertAssignRun(manager, labId, study.id, user, manifest, plan);
-      await this.insertSteps(manager, study.id, runId, user, manifest);
+      const runId = await this.insertAssignRun(manager, labId, study.id, user, manifest, plan, contributions);
+      const checkRunId = check
+        ? await this.insertCheckRun(manager, labId, study.id, user, manifest, plan, check)
+        : null;
+      await this.insertSteps(manager, study.id, { assign: runId, check: checkRunId }, user, manifest);
       await manager.getRepository(StudyOverrideEntity).insert(
         plan.overrides.map((o) => ({
           studyId: study.id,
@@ -162,34 +170,12 @@ export class BundleRestoreService {
     user: AuthUser,
     manifest: BundleManifest,
     plan: RestorePlan,
+    contributions: ReadonlyMap<string, number[]>,
   ): Promise<string> {
-    const now = new Date();
-    const run = await manager.getRepository(RunEntity).save({
-      labId,
-      studyId,
-      kind: 'classify' as const,
-      status: 'succeeded' as const,
-      progress: 1,
-      phase: 'restored from a bundle',
-      parameters: { ...manifest.parameters, seed: manifest.seed },
-      seed: manifest.seed,
-      summary: { variables: plan.variables, restoredFromBundle: true },
-      createdBy: user.id,
-      startedAt: now,
-      finishedAt: now,
+    const run = await this.insertRun(manager, labId, studyId, user, manifest, plan, 'classify', {
+      variables: plan.variables,
+      restoredFromBundle: true,
     });
-    const p = manifest.parameters.elements.length;
-    for (const role of ['reference', 'unknown'] as const) {
-      const samples = plan.inputs
-        .filter((input) => input.role === role)
-        .map((input) => ({ sampleId: input.sampleId, group: input.group ?? undefined, values: input.values }));
-      await writeRunInputs(manager, run.id, role, samples, p);
-    }
-    await manager
-      .getRepository(RunGroupEntity)
-      .insert(
-        plan.groups.map((group, groupIndex) => ({ runId: run.id, groupIndex, ...group, variables: plan.variables })),
-      );
     const rows = plan.assignments.map((a) => ({
       runId: run.id,
       ordinal: a.ordinal,
@@ -202,8 +188,8 @@ export class BundleRestoreService {
       d2: a.d2,
       pChi2: a.pChi2,
       pHotelling: a.pHotelling,
-      // The bundle does not carry the per-element shares of D²; an empty list says so rather than inventing them.
-      contributions: [],
+      // Bundles made before results/contributions.csv do not carry them; an empty list says so rather than inventing them.
+      contributions: contributions.get(a.sampleId) ?? [],
     }));
     for (let from = 0; from < rows.length; from += 500) {
       await manager.getRepository(RunAssignmentEntity).insert(rows.slice(from, from + 500));
@@ -211,17 +197,80 @@ export class BundleRestoreService {
     return run.id;
   }
 
-  /** Prepare, Assign and Review as the bundle records them; the cards whose inputs stayed behind are left unrun. */
+  /** The check run the Group check card reads: its members, separation of groups and summary. */
+  private async insertCheckRun(
+    manager: EntityManager,
+    labId: string,
+    studyId: string,
+    user: AuthUser,
+    manifest: BundleManifest,
+    plan: RestorePlan,
+    check: RestoredCheck,
+  ): Promise<string> {
+    const run = await this.insertRun(manager, labId, studyId, user, manifest, plan, 'group-check', check.summary);
+    const members = check.members.map((member) => ({ runId: run.id, ...member }));
+    for (let from = 0; from < members.length; from += 500) {
+      await manager.getRepository(RunCheckMemberEntity).insert(members.slice(from, from + 500));
+    }
+    await manager.getRepository(RunCheckPairEntity).insert(check.pairs.map((pair) => ({ runId: run.id, ...pair })));
+    return run.id;
+  }
+
+  /** A succeeded run with the bundle's parameters, inputs and groups. */
+  private async insertRun(
+    manager: EntityManager,
+    labId: string,
+    studyId: string,
+    user: AuthUser,
+    manifest: BundleManifest,
+    plan: RestorePlan,
+    kind: 'classify' | 'group-check',
+    summary: Record<string, unknown>,
+  ) {
+    const now = new Date();
+    const run = await manager.getRepository(RunEntity).save({
+      labId,
+      studyId,
+      kind,
+      status: 'succeeded' as const,
+      progress: 1,
+      phase: 'restored from a bundle',
+      parameters: { ...manifest.parameters, seed: manifest.seed },
+      seed: manifest.seed,
+      summary,
+      createdBy: user.id,
+      startedAt: now,
+      finishedAt: now,
+    });
+    const p = manifest.parameters.elements.length;
+    // The check run reads only the reference; the assign run both.
+    const roles = kind === 'classify' ? (['reference', 'unknown'] as const) : (['reference'] as const);
+    for (const role of roles) {
+      const samples = plan.inputs
+        .filter((input) => input.role === role)
+        .map((input) => ({ sampleId: input.sampleId, group: input.group ?? undefined, values: input.values }));
+      await writeRunInputs(manager, run.id, role, samples, p);
+    }
+    await manager
+      .getRepository(RunGroupEntity)
+      .insert(
+        plan.groups.map((group, groupIndex) => ({ runId: run.id, groupIndex, ...group, variables: plan.variables })),
+      );
+    return run;
+  }
+
+  /** Prepare, Group check, Assign and Review as the bundle records them; the cards whose inputs stayed behind are left unrun. */
   private async insertSteps(
     manager: EntityManager,
     studyId: string,
-    runId: string,
+    runIds: { assign: string; check: string | null },
     user: AuthUser,
     manifest: BundleManifest,
   ) {
     const prepare = prepareParameters(manifest);
     const restored: Partial<Record<(typeof stepKeys)[number], { status: StepStatus; parameters: object | null }>> = {
       prepare: { status: prepare ? 'current' : 'not_run', parameters: prepare },
+      ...(runIds.check ? { check: { status: 'current' as const, parameters: defaultStepParameters.check } } : {}),
       assign: {
         status: 'current',
         parameters: { probability: manifest.parameters.probability, alpha: manifest.parameters.alpha },
@@ -235,7 +284,7 @@ export class BundleRestoreService {
         position,
         status: restored[key]?.status ?? ('not_run' as const),
         parameters: restored[key]?.parameters ?? defaultStepParameters[key],
-        runId: key === 'assign' ? runId : null,
+        runId: key === 'assign' ? runIds.assign : key === 'check' ? runIds.check : null,
         updatedById: user.id,
       })),
     );

@@ -1,8 +1,24 @@
 import { createHash } from 'node:crypto';
 import type { Response } from 'supertest';
 import { DataSource } from 'typeorm';
-import { bundleListSchema, bundleSummarySchema, openedBundleSchema, type Study } from '@provenote/shared';
-import { readZipEntries, verifyBundle } from '@provenote/workers';
+import {
+  bundleListSchema,
+  bundleSummarySchema,
+  checkResultsSchema,
+  openedBundleSchema,
+  type Study,
+} from '@provenote/shared';
+import {
+  CONTRIBUTIONS_COLUMNS,
+  CONTRIBUTIONS_PATH,
+  MEMBERS_COLUMNS,
+  MEMBERS_PATH,
+  parseCsv,
+  readZipEntries,
+  SEPARATION_COLUMNS,
+  SEPARATION_PATH,
+  verifyBundle,
+} from '@provenote/workers';
 import { rewriteZip, renameEntryBytes } from '../../../workers/src/bundles/__fixtures__/zip-tools';
 import { createLabWithMembers, type Agent, type SignedInMember } from '../../test/auth-helpers';
 import { waitForRun } from '../../test/run-waits';
@@ -33,6 +49,11 @@ describe('result bundles over HTTP (PostgreSQL, Redis, the bundle job)', () => {
          (SELECT count(*) FROM runs)::int AS runs`,
     )) as { studies: number; bundles: number; runs: number }[];
     return row;
+  };
+  const csvOf = async (bytes: Buffer, path: string, columns: string[]) => {
+    const entry = (await readZipEntries(bytes)).find((e) => e.name === path);
+    if (!entry) throw new Error(`${path} is not in the bundle`);
+    return parseCsv(entry.bytes.toString('utf8'), path, columns).rows;
   };
   const open = (agent: Agent, bytes: Buffer) =>
     agent.post(`${base()}/bundles/open`).attach('file', bytes, 'bundle.zip');
@@ -195,6 +216,69 @@ describe('result bundles over HTTP (PostgreSQL, Redis, the bundle job)', () => {
       expect(bundles.bundles.map((b) => [b.origin, b.sha256])).toEqual([
         ['uploaded', createHash('sha256').update(zip).digest('hex')],
       ]);
+
+      // The Group check card of the restored study shows the bundle's leave-one-out results and separation.
+      expect(restored.steps.find((s) => s.key === 'check')).toMatchObject({ status: 'current' });
+      const checked = checkResultsSchema.parse(
+        (await members.guest.agent.get(`${study}/check-results?pageSize=200`).expect(200)).body,
+      );
+      const memberRows = await csvOf(zip, MEMBERS_PATH, MEMBERS_COLUMNS);
+      expect(checked.members.total).toBe(36);
+      expect(checked.memberCount).toBe(36);
+      expect(
+        checked.members.rows.map((m) => [
+          m.sampleId,
+          m.group,
+          m.d2,
+          m.d2LeaveOneOut,
+          m.pHotellingLeaveOneOut,
+          m.outcome,
+        ]),
+      ).toEqual(
+        memberRows.map(([id, group, d2, d2Loo, pLoo, verdict]) => [
+          id,
+          group,
+          Number(d2),
+          Number(d2Loo),
+          Number(pLoo),
+          verdict,
+        ]),
+      );
+      const separation = await csvOf(zip, SEPARATION_PATH, SEPARATION_COLUMNS);
+      expect(separation).toHaveLength(3);
+      // The card names each pair and lists the pairs in name order; the bundle as the check met them.
+      const byNames = (a: { groupA: string; groupB: string }, b: { groupA: string; groupB: string }) =>
+        a.groupA.localeCompare(b.groupA) || a.groupB.localeCompare(b.groupB);
+      expect(checked.pairs).toEqual(
+        separation
+          .map(([first, second, t2, f, df1, df2, p]) => ({
+            groupA: [first, second].sort()[0],
+            groupB: [first, second].sort()[1],
+            t2: Number(t2),
+            f: Number(f),
+            df1: Number(df1),
+            df2: Number(df2),
+            p: Number(p),
+          }))
+          .sort(byNames),
+      );
+      // What the CSVs do not carry comes from the engine; it must agree with the original study's check.
+      const originalCheck = checkResultsSchema.parse(
+        (await members.guest.agent.get(`${base()}/studies/${studyId}/check-results?pageSize=200`).expect(200)).body,
+      );
+      const { runId: _r, ...restoredRest } = checked;
+      const { runId: _o, ...originalRest } = originalCheck;
+      expect(restoredRest).toEqual(originalRest);
+
+      // Each unknown carries its contributions to D² to its best group, as results/contributions.csv lists them.
+      const contributions = await csvOf(zip, CONTRIBUTIONS_PATH, CONTRIBUTIONS_COLUMNS);
+      const un2 = (page.rows as { sampleId: string; group: string; contributions: number[] }[]).find(
+        (row) => row.sampleId === 'UN2',
+      )!;
+      const listed = contributions.filter(([id]) => id === 'UN2');
+      expect(listed.map(([, group]) => group)).toEqual(listed.map(() => un2.group));
+      expect(un2.contributions).toEqual(listed.map(([, , , value]) => Number(value)));
+      expect(un2.contributions).toHaveLength(3);
 
       const analyst = members.analyst.agent;
       const before = await counts();
