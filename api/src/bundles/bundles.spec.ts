@@ -11,6 +11,7 @@ import {
 import {
   CONTRIBUTIONS_COLUMNS,
   CONTRIBUTIONS_PATH,
+  MANIFEST_PATH,
   MEMBERS_COLUMNS,
   MEMBERS_PATH,
   parseCsv,
@@ -190,6 +191,28 @@ describe('result bundles over HTTP (PostgreSQL, Redis, the bundle job)', () => {
       const res = await open(members.analyst.agent, Buffer.from('not,a,zip\n')).expect(422);
       expect(res.body.errors[0]).toMatchObject({ path: '(archive)', message: expect.stringMatching(/^unreadable/) });
       await open(members.guest.agent, zip).expect(403);
+    });
+
+    it('restores a bundle made before results/contributions.csv with empty contributions', async () => {
+      const older = await rewriteZip(zip, (entries) =>
+        entries
+          .filter((e) => e.name !== CONTRIBUTIONS_PATH)
+          .map((e) => {
+            if (e.name !== MANIFEST_PATH) return e;
+            const manifest = JSON.parse(e.bytes.toString('utf8')) as { files: { path: string }[] };
+            const files = manifest.files.filter((f) => f.path !== CONTRIBUTIONS_PATH);
+            return { ...e, bytes: Buffer.from(JSON.stringify({ ...manifest, files })) };
+          }),
+      );
+      const opened = openedBundleSchema.parse((await open(members.analyst.agent, older).expect(201)).body);
+      const restored: Study = (await members.guest.agent.get(`${base()}/studies/${opened.studyId}`).expect(200)).body;
+      const runId = restored.steps.find((s) => s.key === 'assign')!.runId;
+      const page = (await members.guest.agent.get(`${base()}/runs/${runId}/assignments`).expect(200)).body;
+      expect(page.total).toBe(9);
+      expect((page.rows as { contributions: number[] }[]).map((row) => row.contributions)).toEqual(
+        Array.from({ length: 9 }, () => []),
+      );
+      await members.guest.agent.get(`${base()}/studies/${opened.studyId}/check-results`).expect(200);
     });
 
     it('restores a verified bundle as a read-only study that no write route changes', async () => {
