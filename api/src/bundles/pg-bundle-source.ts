@@ -8,7 +8,9 @@ import {
   EngineError,
   type AssignmentVerdict,
   type BundleManifest,
+  type ProjectionMethod,
   type RunEvent,
+  type StoredProjection,
 } from '@provenote/shared';
 import type { BundleSource, BundleSources, StoredAssignment } from '@provenote/workers';
 import { APP_VERSION } from '../version';
@@ -95,6 +97,7 @@ export class PgBundleSource implements BundleSource {
         )) as { sample_id: string; verdict: AssignmentVerdict; group_name: string | null; reason: string }[]
       ).map((row) => ({ sampleId: row.sample_id, verdict: row.verdict, group: row.group_name, reason: row.reason })),
       ...(await this.check(db, checkRunId)),
+      projections: await this.projections(db, head.source_run_id),
     };
   }
 
@@ -176,6 +179,16 @@ export class PgBundleSource implements BundleSource {
       contributions: row.contributions,
     }));
     return { groups, variables: groupRows[0]?.variables ?? [], assignments };
+  }
+
+  private async projections(db: EntityManager, runId: string) {
+    const rows = (await db.query(`SELECT method, data FROM run_projections WHERE run_id = $1`, [runId])) as {
+      method: ProjectionMethod;
+      data: StoredProjection;
+    }[];
+    return Object.fromEntries(rows.map((row) => [row.method, row.data])) as Partial<
+      Record<ProjectionMethod, StoredProjection>
+    >;
   }
 
   private async check(db: EntityManager, runId: string) {

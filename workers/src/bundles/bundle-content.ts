@@ -110,10 +110,14 @@ export interface BundleResults {
 /** A 2-D view of the samples (principal components or canonical variates) with each group's ellipse. */
 export interface ProjectionContent {
   readonly title: string;
+  /** Why the run has no such view (e.g. canonical variates of two groups); then no points or ellipses. */
+  readonly unavailable: string | null;
   readonly xLabel: string;
   readonly yLabel: string;
   readonly points: readonly { sampleId: string; role: SampleRole; group: string | null; x: number; y: number }[];
   readonly ellipses: readonly { group: string; level: number; x: readonly number[]; y: readonly number[] }[];
+  /** What the reader must know to read the figure: the ellipses' law, groups without one, unknowns left out. */
+  readonly notes: readonly string[];
 }
 
 export interface BundleContent {
@@ -131,5 +135,6 @@ export interface BundleContent {
   readonly prepared: readonly PreparedValue[];
   readonly groups: readonly GroupContent[];
   readonly results: BundleResults;
-  readonly projection?: ProjectionContent;
+  /** Principal components, then canonical variates, as the assign run stored them; none, no figures. */
+  readonly projections?: readonly ProjectionContent[];
 }

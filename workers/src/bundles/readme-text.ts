@@ -15,7 +15,7 @@ export function readmeText(content: BundleContent): string {
     'FILES',
     '  manifest.json          versions, time, who, lab and study, every parameter, the reference group',
     '                         versions, the random seed, and the SHA-256 and size of every other file.',
-    '  report.html            the report: study, methods, groups, assignments and the main projection.',
+    '  report.html            the report: study, methods, groups, assignments and the main projections.',
     '                         It opens offline in any browser.',
     '  inputs/raw/            the uploaded files, byte for byte.',
     '  inputs/prepared.csv    the data as used: one row per sample and element (sample_id, role, group,',

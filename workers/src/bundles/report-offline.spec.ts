@@ -28,7 +28,7 @@ describe('report.html', () => {
     rmSync(folder, { recursive: true, force: true });
   });
 
-  it('opens offline with no request but itself and shows the study, methods, groups, assignments and projection', async () => {
+  it('opens offline with no request but itself and shows the study, methods, groups, assignments and projections', async () => {
     const content = irisContent({ firstUnknownId: '<img src="http://example.invalid/x.png">' });
     const file = join(folder, 'report.html');
     writeFileSync(file, renderReport(content));
@@ -55,8 +55,10 @@ describe('report.html', () => {
     await expect(page.locator('h2:has-text("Assignments") + p').textContent()).resolves.toMatch(
       /^15 unknown samples: /,
     );
-    await expect(page.locator('figure svg circle').count()).resolves.toBe(135 + 3);
-    await expect(page.locator('figure svg path').count()).resolves.toBe(15 + 1);
+    // Two figures (principal components and canonical variates), each with the legend's markers.
+    await expect(page.locator('figure svg circle').count()).resolves.toBe(2 * (135 + 3));
+    await expect(page.locator('figure svg polygon').count()).resolves.toBe(2 * 3);
+    await expect(page.locator('figure svg path').count()).resolves.toBe(2 * (15 + 1));
     await context.close();
   }, 60_000);
 });

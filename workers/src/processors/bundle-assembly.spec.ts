@@ -88,6 +88,8 @@ function irisSources(): BundleSources {
     members: run.members,
     // Stored with the later group first, as a run ordering groups by name may do.
     separation: run.separation.map((pair) => ({ ...pair, groupA: pair.groupB, groupB: pair.groupA })),
+    // As a run from before projections were stored.
+    projections: {},
   };
 }
 
@@ -115,6 +117,10 @@ describe('bundleContentFromSources', () => {
       ['virginica', 1],
     ]);
     expect(content.results.distances).toHaveLength(15 * 3);
+    expect(content.projections.map((p) => [p.title, p.unavailable])).toEqual([
+      ['Principal components of the reference samples', 'the assign run stored no such projection'],
+      ['Canonical variates of the reference groups', 'the assign run stored no such projection'],
+    ]);
 
     const verification = await verifyBundle(await bundleBuffer(content));
     expect(verification.problems).toEqual([]);

