@@ -1,4 +1,4 @@
-import { Alert, Button, Divider, Group, Modal, Select, Stack, Text, Textarea, TextInput, Title } from '@mantine/core';
+import { Alert, Button, Divider, Group, Modal, Stack, Text, Textarea, TextInput, Title } from '@mantine/core';
 import { useState } from 'react';
 import {
   createGroupVersionSchema,
@@ -8,7 +8,7 @@ import {
 } from '@provenote/shared/schemas';
 import { errorMessage } from '../../../app/api-client';
 import { useAddGroupVersion, useUpdateGroup } from '../api/groups';
-import { SampleSelector } from './SampleSelector';
+import { MemberPicker } from './MemberPicker';
 
 interface Props {
   labId: string;
@@ -36,8 +36,6 @@ export function EditGroupModal({ labId, group, datasets, onClose }: Props) {
   const [versionErrors, setVersionErrors] = useState<Record<string, string>>({});
   const update = useUpdateGroup(labId, group.id);
   const addVersion = useAddGroupVersion(labId, group.id);
-  const versions = datasets.flatMap((d) => d.versions.map((v) => ({ dataset: d, version: v })));
-  const chosen = versions.find((v) => v.version.id === versionId);
 
   const saveDetails = () => {
     const changes = {
@@ -101,34 +99,20 @@ export function EditGroupModal({ labId, group, datasets, onClose }: Props) {
           A new version starts unapproved: students can assign against it once an analyst or PI approves it. Version{' '}
           {latest ? `v${latest.number}` : ''} stays as it is.
         </Alert>
-        <Select
-          label="Reference data"
-          data={versions.map(({ dataset, version }) => ({
-            value: version.id,
-            label: `${dataset.name} — version ${version.number}`,
-          }))}
-          value={versionId}
-          onChange={(v) => {
-            setVersionId(v);
-            // Members are sample ids of one dataset version: another version starts from an empty choice.
-            setMemberIds(v === latest?.datasetVersionId ? latest.memberIds : []);
+        <MemberPicker
+          labId={labId}
+          datasets={datasets}
+          versionId={versionId}
+          memberIds={memberIds}
+          // Members are sample ids of one dataset version: another version starts from an empty choice.
+          membersFor={(version) => (version === latest?.datasetVersionId ? latest.memberIds : [])}
+          onChange={(version, members) => {
+            setVersionId(version);
+            setMemberIds(members);
           }}
-          error={versionErrors.datasetVersionId}
+          versionError={versionErrors.datasetVersionId}
+          membersError={versionErrors.memberIds}
         />
-        {chosen && (
-          <SampleSelector
-            labId={labId}
-            datasetId={chosen.dataset.id}
-            versionNumber={chosen.version.number}
-            selected={memberIds}
-            onChange={setMemberIds}
-          />
-        )}
-        {versionErrors.memberIds && (
-          <Text c="red" size="sm">
-            {versionErrors.memberIds}
-          </Text>
-        )}
         <Textarea
           label="What changed"
           description="Kept with the version, e.g. which samples were added or removed and why."

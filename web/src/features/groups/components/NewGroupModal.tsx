@@ -1,9 +1,9 @@
-import { Button, Group, Modal, Select, Stack, Text, Textarea, TextInput } from '@mantine/core';
+import { Button, Group, Modal, Stack, Text, Textarea, TextInput } from '@mantine/core';
 import { useState } from 'react';
 import { createGroupSchema, type Dataset } from '@provenote/shared/schemas';
 import { errorMessage } from '../../../app/api-client';
 import { useCreateGroup } from '../api/groups';
-import { SampleSelector } from './SampleSelector';
+import { MemberPicker } from './MemberPicker';
 
 interface Props {
   labId: string;
@@ -20,8 +20,6 @@ export function NewGroupModal({ labId, datasets, opened, onClose }: Props) {
   const [memberIds, setMemberIds] = useState<string[]>([]);
   const [errors, setErrors] = useState<Record<string, string>>({});
   const create = useCreateGroup(labId);
-  const versions = datasets.flatMap((d) => d.versions.map((v) => ({ dataset: d, version: v })));
-  const chosen = versions.find((v) => v.version.id === versionId);
 
   const submit = () => {
     const parsed = createGroupSchema.safeParse({ name, description, datasetVersionId: versionId ?? '', memberIds });
@@ -50,33 +48,19 @@ export function NewGroupModal({ labId, datasets, opened, onClose }: Props) {
           onChange={(e) => setDescription(e.currentTarget.value)}
           rows={2}
         />
-        <Select
-          label="Reference data"
-          data={versions.map(({ dataset, version }) => ({
-            value: version.id,
-            label: `${dataset.name} — version ${version.number}`,
-          }))}
-          value={versionId}
-          onChange={(v) => {
-            setVersionId(v);
-            setMemberIds([]);
+        <MemberPicker
+          labId={labId}
+          datasets={datasets}
+          versionId={versionId}
+          memberIds={memberIds}
+          membersFor={() => []}
+          onChange={(version, members) => {
+            setVersionId(version);
+            setMemberIds(members);
           }}
-          error={errors.datasetVersionId}
+          versionError={errors.datasetVersionId}
+          membersError={errors.memberIds}
         />
-        {chosen && (
-          <SampleSelector
-            labId={labId}
-            datasetId={chosen.dataset.id}
-            versionNumber={chosen.version.number}
-            selected={memberIds}
-            onChange={setMemberIds}
-          />
-        )}
-        {errors.memberIds && (
-          <Text c="red" size="sm">
-            {errors.memberIds}
-          </Text>
-        )}
         {create.isError && (
           <Text c="red" size="sm">
             {errorMessage(create.error)}
