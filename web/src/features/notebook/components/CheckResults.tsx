@@ -222,8 +222,9 @@ function RobustFitNotes({ data }: { data: Results }) {
     <Stack gap={4}>
       <Text size="xs" c="dimmed">
         Robust fit: each group is refitted by FAST-MCD (seed {seeds}); a member is flagged when its robust D² exceeds
-        the χ² 97.5 % point. A flag is statistical evidence that a member lies apart from its group, not proof that its
-        source is wrong: check its record before excluding it.
+        the 97.5 % point of robust D² in simulated clean groups of the same size and dimension, so about one member in
+        forty of a clean group is flagged. A flag is statistical evidence that a member lies apart from its group, not
+        proof that its source is wrong: check its record before excluding it.
       </Text>
       {unfitted.length > 0 && (
         <List size="sm">
