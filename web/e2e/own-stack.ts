@@ -1,5 +1,6 @@
 import { type ChildProcess, spawn, spawnSync } from 'node:child_process';
 import { once } from 'node:events';
+import { existsSync } from 'node:fs';
 import { createServer } from 'node:net';
 import { fileURLToPath } from 'node:url';
 import yauzl from 'yauzl';
@@ -23,13 +24,19 @@ function freePort(): Promise<number> {
 }
 
 /**
- * The built API with its embedded worker on a freshly seeded database of its own (and so a queue of its
- * own): a journey that signs the demo study off must not take that step away from the PI journey, which
- * may run before or after it on the shared database.
+ * The built API (serving the built web app, with its embedded worker) on a free port against a freshly
+ * seeded database of its own in the cluster `npm test` started — and so a queue of its own, the queue
+ * prefix following the database name. The journeys share one such stack (global-setup.ts); a journey that
+ * signs the demo study off starts another, so it cannot take that step away from the PI journey.
  */
 export async function startOwnStack(database: string): Promise<OwnStack> {
   const clusterUrl = process.env.DATABASE_URL;
-  if (!clusterUrl) throw new Error('This journey needs DATABASE_URL: run it through `npm test -- e2e`.');
+  if (!clusterUrl || !process.env.REDIS_URL) {
+    throw new Error('The browser journeys need DATABASE_URL and REDIS_URL: run them through `npm test -- e2e`.');
+  }
+  for (const built of ['api/dist/main.js', 'web/dist/index.html']) {
+    if (!existsSync(repoRoot + built)) throw new Error(`${built} is missing: build first (npm test does).`);
+  }
   const databaseUrl = new URL(clusterUrl);
   databaseUrl.pathname = `/${database}`;
   const psql = (sql: string) => {
