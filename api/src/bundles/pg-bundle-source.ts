@@ -28,6 +28,10 @@ interface BundleRunRow {
   study_name: string;
   study_description: string;
   source_run_id: string;
+  signed_off_at: Date | null;
+  signed_off_by: string | null;
+  signer_name: string | null;
+  sign_off_statement: string | null;
 }
 
 interface StepRow {
@@ -35,6 +39,9 @@ interface StepRow {
   parameters: Record<string, unknown> | null;
   run_id: string | null;
 }
+
+/** Stands in for a person whose account was deleted (their id is set to null with it). */
+const FORMER_MEMBER = 'a former member';
 
 /**
  * A missing piece of a signed-off study. Retrying cannot bring it back, and the run worker fails an
@@ -55,13 +62,15 @@ export class PgBundleSource implements BundleSource {
     const [head] = (await db.query(
       `SELECT b.run_id, r.created_at, r.created_by, u.display_name AS creator_name, l.id AS lab_id,
          l.name AS lab_name, s.id AS study_id, s.name AS study_name, s.description AS study_description,
-         b.source_run_id
+         b.source_run_id, s.signed_off_at, s.signed_off_by, su.display_name AS signer_name, s.sign_off_statement
        FROM bundles b JOIN runs r ON r.id = b.run_id JOIN labs l ON l.id = b.lab_id
          JOIN studies s ON s.id = b.study_id LEFT JOIN users u ON u.id = r.created_by
+         LEFT JOIN users su ON su.id = s.signed_off_by
        WHERE b.run_id = $1`,
       [bundleRunId],
     )) as BundleRunRow[];
     if (!head) throw new BundleSourceError(`run ${bundleRunId} has no bundle record`);
+    if (!head.signed_off_at) throw new BundleSourceError('the study has not been signed off');
     const [assign] = (await db.query(`SELECT parameters, seed FROM runs WHERE id = $1 AND status = 'succeeded'`, [
       head.source_run_id,
     ])) as { parameters: unknown; seed: number | null }[];
@@ -77,10 +86,15 @@ export class PgBundleSource implements BundleSource {
     return {
       provenoteVersion: APP_VERSION,
       createdAt: head.created_at.toISOString(),
-      createdBy: { id: head.created_by, name: head.creator_name ?? 'a former member' },
+      createdBy: { id: head.created_by, name: head.creator_name ?? FORMER_MEMBER },
       lab: { id: head.lab_id, name: head.lab_name },
       study: { id: head.study_id, title: head.study_name, description: head.study_description },
       assignRunId: head.source_run_id,
+      signOff: {
+        by: { id: head.signed_off_by, name: head.signer_name ?? FORMER_MEMBER },
+        at: head.signed_off_at.toISOString(),
+        statement: head.sign_off_statement ?? '',
+      },
       parameters: assignmentParametersSchema.parse(assign.parameters),
       seed: assign.seed ?? DEFAULT_MCD_SEED,
       rawFiles: await this.rawFiles(db, step('data')?.parameters ?? {}),
@@ -90,12 +104,7 @@ export class PgBundleSource implements BundleSource {
       groups,
       variables,
       assignments,
-      overrides: (
-        (await db.query(
-          `SELECT sample_id, verdict, group_name, reason FROM study_overrides WHERE study_id = $1 AND run_id = $2`,
-          [head.study_id, head.source_run_id],
-        )) as { sample_id: string; verdict: AssignmentVerdict; group_name: string | null; reason: string }[]
-      ).map((row) => ({ sampleId: row.sample_id, verdict: row.verdict, group: row.group_name, reason: row.reason })),
+      overrides: await this.overrides(db, head.study_id, head.source_run_id),
       ...(await this.check(db, checkRunId)),
       projections: await this.projections(db, head.source_run_id),
     };
@@ -120,6 +129,30 @@ export class PgBundleSource implements BundleSource {
       )) as [RunEventRow[], number];
       return rows[0] ? toRunEvent(rows[0]) : null;
     });
+  }
+
+  private async overrides(db: EntityManager, studyId: string, runId: string) {
+    const rows = (await db.query(
+      `SELECT o.sample_id, o.verdict, o.group_name, o.reason, o.created_at, u.display_name AS author
+       FROM study_overrides o LEFT JOIN users u ON u.id = o.created_by
+       WHERE o.study_id = $1 AND o.run_id = $2`,
+      [studyId, runId],
+    )) as {
+      sample_id: string;
+      verdict: AssignmentVerdict;
+      group_name: string | null;
+      reason: string;
+      created_at: Date;
+      author: string | null;
+    }[];
+    return rows.map((row) => ({
+      sampleId: row.sample_id,
+      verdict: row.verdict,
+      group: row.group_name,
+      reason: row.reason,
+      by: row.author ?? FORMER_MEMBER,
+      at: row.created_at.toISOString(),
+    }));
   }
 
   private async rawFiles(db: EntityManager, data: Record<string, unknown>) {

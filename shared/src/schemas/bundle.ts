@@ -40,6 +40,14 @@ export type BundleGroup = z.infer<typeof bundleGroupSchema>;
 
 const actorSchema = z.object({ id: z.string().nullable(), name: z.string().min(1) });
 
+/** The PI's sign-off the bundle was made under; absent in bundles made before it was recorded. */
+export const bundleSignOffSchema = z.object({
+  by: actorSchema,
+  at: z.iso.datetime({ offset: true }),
+  statement: z.string(),
+});
+export type BundleSignOff = z.infer<typeof bundleSignOffSchema>;
+
 /** manifest.json: who made the bundle, from what, with which settings, and the checksum of every other file. */
 export const bundleManifestSchema = z.object({
   format: z.literal(BUNDLE_FORMAT),
@@ -51,6 +59,7 @@ export const bundleManifestSchema = z.object({
   lab: actorSchema,
   study: z.object({ id: z.string().nullable(), title: z.string().min(1), description: z.string() }),
   runId: z.string().nullable(),
+  signOff: bundleSignOffSchema.optional(),
   parameters: assignmentParametersSchema,
   /** Seed of every random step (the FAST-MCD subsets); recorded even when the run used none. */
   seed: z.number().int().min(0),

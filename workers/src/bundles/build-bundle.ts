@@ -37,6 +37,7 @@ export function bundleEntries(content: BundleContent): { entries: BundleEntry[];
     lab: content.lab,
     study: content.study,
     runId: content.runId,
+    ...(content.signOff ? { signOff: content.signOff } : {}),
     parameters: content.parameters,
     seed: content.seed,
     groups,

@@ -1,4 +1,4 @@
-import type { AssignmentParameters, AssignmentVerdict } from '@provenote/shared';
+import type { AssignmentParameters, AssignmentVerdict, BundleSignOff } from '@provenote/shared';
 
 /*
  * Everything a bundle records, gathered by the caller (the bundle job from PostgreSQL, a test from a
@@ -70,6 +70,9 @@ export interface AssignmentRow {
   readonly finalVerdict: AssignmentVerdict;
   readonly finalGroup: string | null;
   readonly overrideReason: string | null;
+  /** Who overrode the computed verdict and when (ISO time); null when nobody did. */
+  readonly overriddenBy: string | null;
+  readonly overriddenAt: string | null;
 }
 
 /** One unknown's share of D² to its best group from one distance coordinate; the shares sum to D². */
@@ -128,6 +131,8 @@ export interface BundleContent {
   readonly lab: { readonly id: string | null; readonly name: string };
   readonly study: { readonly id: string | null; readonly title: string; readonly description: string };
   readonly runId: string | null;
+  /** The PI's sign-off of the study; null only for bundles built outside a signed-off study (tests, the CLI). */
+  readonly signOff: BundleSignOff | null;
   readonly parameters: AssignmentParameters;
   readonly seed: number;
   /** The uploaded files, byte for byte. */

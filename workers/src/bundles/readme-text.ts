@@ -7,14 +7,18 @@ export function readmeText(content: BundleContent): string {
   return [
     `Provenote result bundle: ${content.study.title}`,
     `Lab: ${content.lab.name}. Made by ${content.createdBy.name} on ${content.createdAt}.`,
+    content.signOff
+      ? `Signed off by ${content.signOff.by.name} on ${content.signOff.at} (statement in manifest.json).`
+      : 'Not signed off: built outside a signed-off study.',
     `Provenote ${content.provenoteVersion}, engine ${content.engineVersion}.`,
     '',
     'A membership probability is statistical evidence that a sample is typical of a reference group,',
     'not proof of its origin.',
     '',
     'FILES',
-    '  manifest.json          versions, time, who, lab and study, every parameter, the reference group',
-    '                         versions, the random seed, and the SHA-256 and size of every other file.',
+    '  manifest.json          versions, time, who, lab and study, the sign-off (who, when, statement),',
+    '                         every parameter, the reference group versions, the random seed, and the',
+    '                         SHA-256 and size of every other file.',
     '  report.html            the report: study, methods, groups, assignments and the main projections.',
     '                         It opens offline in any browser.',
     '  inputs/raw/            the uploaded files, byte for byte.',

@@ -66,6 +66,11 @@ function irisSources(): BundleSources {
     lab: { id: '11111111-1111-4111-8111-111111111111', name: 'Synthetic test lab' },
     study: { id: '33333333-3333-4333-8333-333333333333', title: 'Iris as reference groups', description: '' },
     assignRunId: '22222222-2222-4222-8222-222222222222',
+    signOff: {
+      by: { id: null, name: 'Test PI' },
+      at: '2026-01-15T10:00:00.000Z',
+      statement: 'Reviewed and approved.',
+    },
     parameters,
     seed: 7,
     rawFiles: [{ name: 'iris.csv', bytes: new TextEncoder().encode('id,species\n') }],
@@ -84,7 +89,16 @@ function irisSources(): BundleSources {
         contributions: run.contributions.filter((c) => c.sampleId === a.sampleId).map((c) => c.contribution),
       };
     }),
-    overrides: [{ sampleId: 'iris-10', verdict: 'unassigned', group: null, reason: 'petal damaged in transport' }],
+    overrides: [
+      {
+        sampleId: 'iris-10',
+        verdict: 'unassigned',
+        group: null,
+        reason: 'petal damaged in transport',
+        by: 'Test Analyst',
+        at: '2026-01-14T16:45:00.000Z',
+      },
+    ],
     members: run.members,
     // Stored with the later group first, as a run ordering groups by name may do.
     separation: run.separation.map((pair) => ({ ...pair, groupA: pair.groupB, groupB: pair.groupA })),
@@ -107,7 +121,10 @@ describe('bundleContentFromSources', () => {
       finalVerdict: 'unassigned',
       finalGroup: null,
       overrideReason: 'petal damaged in transport',
+      overriddenBy: 'Test Analyst',
+      overriddenAt: '2026-01-14T16:45:00.000Z',
     });
+    expect(content.signOff).toEqual(sources.signOff);
     const untouched = content.results.assignments.find((a) => a.sampleId === 'iris-20')!;
     expect(untouched.overrideReason).toBeNull();
     expect(untouched.finalVerdict).toBe(untouched.verdict);

@@ -59,6 +59,8 @@ function assignments(sources: BundleSources): AssignmentRow[] {
       finalVerdict: override?.verdict ?? row.verdict,
       finalGroup: override ? override.group : row.verdict === 'assigned' ? row.group : null,
       overrideReason: override?.reason ?? null,
+      overriddenBy: override?.by ?? null,
+      overriddenAt: override?.at ?? null,
     };
   });
 }
@@ -128,6 +130,7 @@ export function bundleContentFromSources(sources: BundleSources): BundleContent 
     lab: sources.lab,
     study: sources.study,
     runId: sources.assignRunId,
+    signOff: sources.signOff,
     parameters: sources.parameters,
     seed: sources.seed,
     inputs: sources.rawFiles,

@@ -2,6 +2,7 @@ import type {
   AssignmentParameters,
   AssignmentVerdict,
   BundleManifest,
+  BundleSignOff,
   ProjectionMethod,
   RunEvent,
   StoredProjection,
@@ -30,6 +31,9 @@ export interface StoredOverride {
   readonly verdict: AssignmentVerdict;
   readonly group: string | null;
   readonly reason: string;
+  /** Display name of who made the override, and when (ISO time). */
+  readonly by: string;
+  readonly at: string;
 }
 
 /**
@@ -44,6 +48,7 @@ export interface BundleSources {
   readonly study: { readonly id: string; readonly title: string; readonly description: string };
   /** The assign run whose results the bundle carries. */
   readonly assignRunId: string;
+  readonly signOff: BundleSignOff;
   readonly parameters: AssignmentParameters;
   readonly seed: number;
   readonly rawFiles: readonly { readonly name: string; readonly bytes: Uint8Array }[];

@@ -15,15 +15,45 @@ const BELOW_DETECTION_TEXT: Record<string, string> = {
   multiplicative: 'multiplicative replacement (Martín-Fernández, Barceló-Vidal & Pawlowsky-Glahn 2003)',
 };
 
-export const REFERENCES = [
-  'Aitchison, J. (1986). The Statistical Analysis of Compositional Data. Chapman & Hall.',
-  'Egozcue, J. J., Pawlowsky-Glahn, V., Mateu-Figueras, G. & Barceló-Vidal, C. (2003). Isometric logratio transformations for compositional data analysis. Mathematical Geology 35:279–300.',
-  'Hornung, R. W. & Reed, L. D. (1990). Estimation of average concentration in the presence of nondetectable values. Applied Occupational and Environmental Hygiene 5:46–51.',
-  'Hotelling, H. (1931). The generalization of Student’s ratio. Annals of Mathematical Statistics 2:360–378.',
-  'Mahalanobis, P. C. (1936). On the generalised distance in statistics. Proceedings of the National Institute of Sciences of India 2:49–55.',
-  'Martín-Fernández, J. A., Barceló-Vidal, C. & Pawlowsky-Glahn, V. (2003). Dealing with zeros and missing values in compositional data sets using nonparametric imputation. Mathematical Geology 35:253–278.',
-  'NIST/SEMATECH e-Handbook of Statistical Methods, §6.5.4.3, Hotelling’s T squared.',
-  'Rousseeuw, P. J. & Van Driessen, K. (1999). A fast algorithm for the minimum covariance determinant estimator. Technometrics 41:212–223.',
+/** Each reference with the citation the methods paragraph writes for it. */
+const REFERENCES: readonly { readonly cited: string; readonly entry: string }[] = [
+  {
+    cited: 'Aitchison 1986',
+    entry: 'Aitchison, J. (1986). The Statistical Analysis of Compositional Data. Chapman & Hall.',
+  },
+  {
+    cited: 'Egozcue et al. 2003',
+    entry:
+      'Egozcue, J. J., Pawlowsky-Glahn, V., Mateu-Figueras, G. & Barceló-Vidal, C. (2003). Isometric logratio transformations for compositional data analysis. Mathematical Geology 35:279–300.',
+  },
+  {
+    cited: 'Hornung & Reed 1990',
+    entry:
+      'Hornung, R. W. & Reed, L. D. (1990). Estimation of average concentration in the presence of nondetectable values. Applied Occupational and Environmental Hygiene 5:46–51.',
+  },
+  {
+    cited: 'Hotelling 1931',
+    entry: 'Hotelling, H. (1931). The generalization of Student’s ratio. Annals of Mathematical Statistics 2:360–378.',
+  },
+  {
+    cited: 'Mahalanobis 1936',
+    entry:
+      'Mahalanobis, P. C. (1936). On the generalised distance in statistics. Proceedings of the National Institute of Sciences of India 2:49–55.',
+  },
+  {
+    cited: 'Martín-Fernández, Barceló-Vidal & Pawlowsky-Glahn 2003',
+    entry:
+      'Martín-Fernández, J. A., Barceló-Vidal, C. & Pawlowsky-Glahn, V. (2003). Dealing with zeros and missing values in compositional data sets using nonparametric imputation. Mathematical Geology 35:253–278.',
+  },
+  {
+    cited: 'NIST/SEMATECH e-Handbook',
+    entry: 'NIST/SEMATECH e-Handbook of Statistical Methods, §6.5.4.3, Hotelling’s T squared.',
+  },
+  {
+    cited: 'Rousseeuw & Van Driessen 1999',
+    entry:
+      'Rousseeuw, P. J. & Van Driessen, K. (1999). A fast algorithm for the minimum covariance determinant estimator. Technometrics 41:212–223.',
+  },
 ];
 
 /** The methods paragraph, written from the run's parameters. */
@@ -48,4 +78,12 @@ export function methodsParagraph(content: BundleContent): string {
     'Each reference member was also judged with itself left out of its own group (closed-form leave-one-out), and each pair of groups was compared by the two-sample Hotelling T² (Hotelling 1931).',
   ];
   return sentences.join(' ');
+}
+
+/**
+ * The references the methods paragraph cites, and only those: a run on natural logs with the classical
+ * covariance cites no log-ratio, zero-replacement or robust-covariance paper.
+ */
+export function citedReferences(paragraph: string): string[] {
+  return REFERENCES.filter((reference) => paragraph.includes(reference.cited)).map((reference) => reference.entry);
 }

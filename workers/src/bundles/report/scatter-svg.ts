@@ -1,5 +1,5 @@
 import type { ProjectionContent } from '../bundle-content';
-import { escapeHtml, formatNumber } from './html';
+import { escapeHtml } from './html';
 
 const WIDTH = 640;
 const HEIGHT = 480;
@@ -47,15 +47,16 @@ export function scatterSvg(projection: ProjectionContent, groupNames: readonly s
   const r = (v: number) => v.toFixed(2);
 
   const parts: string[] = [];
+  // Tick values are already round; the three-digit reader format would turn a tick at 10250 into 10300.
   for (const t of tickValues(x0, x1)) {
     parts.push(`<line x1="${r(sx(t))}" x2="${r(sx(t))}" y1="${MARGIN.top}" y2="${MARGIN.top + plotH}" class="grid"/>`);
-    parts.push(`<text x="${r(sx(t))}" y="${MARGIN.top + plotH + 16}" text-anchor="middle">${formatNumber(t)}</text>`);
+    parts.push(`<text x="${r(sx(t))}" y="${MARGIN.top + plotH + 16}" text-anchor="middle">${t}</text>`);
   }
   for (const t of tickValues(y0, y1)) {
     parts.push(
       `<line x1="${MARGIN.left}" x2="${MARGIN.left + plotW}" y1="${r(sy(t))}" y2="${r(sy(t))}" class="grid"/>`,
     );
-    parts.push(`<text x="${MARGIN.left - 6}" y="${r(sy(t) + 4)}" text-anchor="end">${formatNumber(t)}</text>`);
+    parts.push(`<text x="${MARGIN.left - 6}" y="${r(sy(t) + 4)}" text-anchor="end">${t}</text>`);
   }
   parts.push(`<rect x="${MARGIN.left}" y="${MARGIN.top}" width="${plotW}" height="${plotH}" class="frame"/>`);
   for (const ellipse of projection.ellipses) {
