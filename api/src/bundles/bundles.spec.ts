@@ -113,6 +113,22 @@ describe('result bundles over HTTP (PostgreSQL, Redis, the bundle job)', () => {
     );
     const assignments = (await readZipEntries(zip)).find((e) => e.name === 'results/assignments.csv')!;
     expect(assignments.bytes.toString('utf8')).toContain(OVERRIDE_REASON);
+    const { signedOffAt } = (
+      await testApp.app
+        .get(DataSource)
+        .query(`SELECT signed_off_at AS "signedOffAt" FROM studies WHERE id = $1`, [studyId])
+    )[0] as {
+      signedOffAt: Date;
+    };
+    expect(verification.manifest!.signOff).toMatchObject({
+      by: { id: members.pi.user.id, name: members.pi.user.displayName },
+      at: signedOffAt.toISOString(),
+    });
+    const report = (await readZipEntries(zip)).find((e) => e.name === 'report.html')!.bytes.toString('utf8');
+    expect(report).toContain(
+      `<strong>Signed off</strong> by ${members.pi.user.displayName} on ${signedOffAt.toISOString()}`,
+    );
+    expect(report).toContain(`${OVERRIDE_REASON} (overridden by ${members.analyst.user.displayName}, `);
 
     const actions = (await testApp.app
       .get(DataSource)
