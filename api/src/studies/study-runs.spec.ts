@@ -191,6 +191,24 @@ describe('running the notebook cards on the queue (HTTP, PostgreSQL, Redis)', ()
         createdBy: members.analyst.user.displayName,
       }),
     ]);
+    const withOverride = await agent.get(`${base()}/runs/${assignRun}/assignments?search=UN1`).expect(200);
+    expect(withOverride.body.rows[0]).toMatchObject({
+      sampleId: 'UN1',
+      verdict: computed.verdict,
+      override: { verdict: 'assigned', group: 'South', reason },
+    });
+    const finalAssigned = await agent.get(`${base()}/runs/${assignRun}/assignments?finalVerdict=assigned`).expect(200);
+    const computedAssigned = page.body.rows.filter(
+      (r: { sampleId: string; verdict: string }) => r.verdict === 'assigned' && r.sampleId !== 'UN1',
+    );
+    expect(finalAssigned.body.total).toBe(computedAssigned.length + 1);
+    expect(finalAssigned.body.rows.map((r: { sampleId: string }) => r.sampleId)).toContain('UN1');
+    if (computed.verdict !== 'assigned') {
+      const stillComputed = await agent
+        .get(`${base()}/runs/${assignRun}/assignments?finalVerdict=${computed.verdict}`)
+        .expect(200);
+      expect(stillComputed.body.rows.map((r: { sampleId: string }) => r.sampleId)).not.toContain('UN1');
+    }
 
     await members.pi.agent.post(`${base()}/studies/${study.id}/sign-off`).send({}).expect(201);
     await agent.post(`${steps}/assign/run`).expect(409);

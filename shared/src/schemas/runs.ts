@@ -157,6 +157,8 @@ export const assignmentsQuerySchema = z.object({
   sort: z.enum(assignmentSortKeys).default('input'),
   order: z.enum(['asc', 'desc']).default('asc'),
   verdict: assignmentVerdictSchema.optional(),
+  /** The verdict after the analyst's override, where there is one; the computed verdict otherwise. */
+  finalVerdict: assignmentVerdictSchema.optional(),
   group: z.string().min(1).optional(),
   /** Sample ids starting with this text. */
   search: z.string().min(1).max(200).optional(),
@@ -177,6 +179,8 @@ export const assignmentRowSchema = z.object({
   pHotelling: z.array(z.number()),
   /** Per element (transformed coordinates), the share of D² to the best group. */
   contributions: z.array(z.number()),
+  /** The analyst's final verdict for this unknown, when it overrides the computed one. */
+  override: z.object({ verdict: assignmentVerdictSchema, group: z.string().nullable(), reason: z.string() }).nullable(),
 });
 export type AssignmentRow = z.infer<typeof assignmentRowSchema>;
 

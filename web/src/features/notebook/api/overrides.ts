@@ -20,6 +20,11 @@ export function useCreateOverride(labId: string, studyId: string) {
       queryClient.setQueryData(overridesQuery(labId, studyId).queryKey, list);
       // An override turns a built bundle stale: the study's cards change.
       void queryClient.invalidateQueries({ queryKey: studyQuery(labId, studyId).queryKey });
+      // The results table shows each unknown's final verdict beside the computed one.
+      void queryClient.invalidateQueries({
+        predicate: ({ queryKey: [labs, lab, runs, , assignments] }) =>
+          labs === 'labs' && lab === labId && runs === 'runs' && assignments === 'assignments',
+      });
     },
   });
 }

@@ -1,4 +1,4 @@
-import { Button, Group, Select, Tabs, TextInput } from '@mantine/core';
+import { Badge, Button, Group, Select, Tabs, Text, TextInput, Tooltip } from '@mantine/core';
 import { useDebouncedValue } from '@mantine/hooks';
 import { DataTable, type DataTableSortStatus } from 'mantine-datatable';
 import 'mantine-datatable/styles.css';
@@ -6,13 +6,31 @@ import { useQueryClient } from '@tanstack/react-query';
 import { useState } from 'react';
 import { assignmentVerdicts, type AssignmentRow, type AssignmentsQuery } from '@provenote/shared/schemas';
 import { errorMessage } from '../../../app/api-client';
+import { formatOptionalProbability as formatP } from '../../../lib/probability';
 import { assignmentsQuery, useAssignments } from '../api/assignments';
 import { BivariatePlot } from '../../plots/components/BivariatePlot';
 import { ProbabilityHeatmap } from '../../plots/components/ProbabilityHeatmap';
 import { ProjectionPlot } from '../../plots/components/ProjectionPlot';
 import { AssignmentDrawer } from './AssignmentDrawer';
 
-const formatP = (p: number | null) => (p === null ? '—' : p < 0.001 ? p.toExponential(2) : p.toFixed(3));
+/** The verdict that stands: the analyst's override where there is one, its reason on hover. */
+function FinalVerdict({ row }: { row: AssignmentRow }) {
+  if (!row.override) return <Text size="sm">{row.verdict}</Text>;
+  const group = row.override.group ? ` (${row.override.group})` : '';
+  return (
+    <Tooltip label={`Reason: ${row.override.reason}`} multiline maw={320} withArrow>
+      <Group gap={6} wrap="nowrap" title={`Overridden — reason: ${row.override.reason}`}>
+        <Text size="sm" fw={600}>
+          {row.override.verdict}
+          {group}
+        </Text>
+        <Badge size="xs" variant="light" color="grape">
+          overridden
+        </Badge>
+      </Group>
+    </Tooltip>
+  );
+}
 const sortable = new Set<string>(['sampleId', 'verdict', 'group', 'probability', 'runnerUpProbability']);
 
 /** The unknowns of one assign run: server-side paging, sorting, filtering and search (100,000 rows and more). */
@@ -49,7 +67,7 @@ export function AssignmentsTable({ labId, studyId, runId, canOverride, basis, el
       ? (sortStatus.columnAccessor as AssignmentsQuery['sort'])
       : 'input',
     order: sortStatus.direction,
-    verdict: (verdict ?? undefined) as AssignmentsQuery['verdict'],
+    finalVerdict: (verdict ?? undefined) as AssignmentsQuery['finalVerdict'],
     group: group ?? undefined,
     search: debouncedSearch || undefined,
   });
@@ -80,7 +98,7 @@ export function AssignmentsTable({ labId, studyId, runId, canOverride, basis, el
           onChange={(e) => resetPage(setSearch)(e.currentTarget.value)}
         />
         <Select
-          label="Verdict"
+          label="Final verdict"
           data={[...assignmentVerdicts]}
           value={verdict}
           onChange={resetPage(setVerdict)}
@@ -170,7 +188,8 @@ export function AssignmentsTable({ labId, studyId, runId, canOverride, basis, el
                 ),
               },
               { accessor: 'sampleId', title: 'Sample', sortable: true },
-              { accessor: 'verdict', title: 'Verdict', sortable: true },
+              { accessor: 'verdict', title: 'Computed verdict', sortable: true, noWrap: true },
+              { accessor: 'final', title: 'Final', noWrap: true, render: (r) => <FinalVerdict row={r} /> },
               { accessor: 'group', title: 'Best group', sortable: true, noWrap: true },
               {
                 accessor: 'probability',

@@ -158,6 +158,7 @@ export const assignmentsPage = {
       pChi2: [0.002, 0.37],
       pHotelling: [0.002, 0.41],
       contributions: [0.8],
+      override: null,
     },
   ],
 };
