@@ -10,7 +10,7 @@ export const REVIEWED_STUDY: CreateStudy = {
   name: 'Core TR-2 sources (synthetic demo)',
   description:
     'Which source area of the Lake Tarn catchment did each slice of Core TR-2 come from? Synthetic data. ' +
-    'Computed and overridden by the analyst; waiting for the PI to review and sign it off.',
+    'Five source areas, nine elements in natural logs; one slice overridden by the analyst after review.',
 };
 
 export const FRESH_STUDY: CreateStudy = {
