@@ -12,6 +12,9 @@ const sizeText = (bytes: number | null) =>
       ? `${(bytes / 1024).toFixed(1)} kB`
       : `${(bytes / 1024 ** 2).toFixed(1)} MB`;
 
+/** A badge clips its label by default; in a squeezed table column that hid the origin ("BUILT H…"). */
+const FULL_BADGE = { root: { overflow: 'visible' }, label: { overflow: 'visible', textOverflow: 'clip' } } as const;
+
 function BundleRow({ labId, bundle }: { labId: string; bundle: BundleSummary }) {
   const ready = bundle.status === 'succeeded' && bundle.sizeBytes !== null;
   return (
@@ -19,13 +22,17 @@ function BundleRow({ labId, bundle }: { labId: string; bundle: BundleSummary }) 
       <Table.Td>{new Date(bundle.createdAt).toLocaleString()}</Table.Td>
       <Table.Td>{bundle.createdBy ?? '—'}</Table.Td>
       <Table.Td>
-        <Badge variant="light" color={bundle.origin === 'built' ? 'blue' : 'grape'}>
+        <Badge variant="light" color={bundle.origin === 'built' ? 'blue' : 'grape'} styles={FULL_BADGE}>
           {bundle.origin === 'built' ? 'built here' : 'opened from a file'}
         </Badge>
       </Table.Td>
       <Table.Td>
         {ready ? (
-          <Anchor href={bundleDownloadUrl(labId, bundle.id)} download={bundle.filename}>
+          <Anchor
+            href={bundleDownloadUrl(labId, bundle.id)}
+            download={bundle.filename}
+            style={{ wordBreak: 'break-all' }}
+          >
             {bundle.filename}
           </Anchor>
         ) : bundle.status === 'failed' ? (

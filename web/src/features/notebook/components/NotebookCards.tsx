@@ -1,5 +1,6 @@
 import { Stack } from '@mantine/core';
 import type { StepKey, StepParameters, Study } from '@provenote/shared/schemas';
+import { useExportStep } from '../../bundles/export-step';
 import { useGroupList } from '../../groups/api/groups';
 import { AssignCard } from './cards/AssignCard';
 import { stepParameters, type CardProps } from './cards/card-props';
@@ -32,6 +33,7 @@ export function NotebookCards(props: Props) {
   const locked = study.signedOffAt !== null;
   const analyst = role === 'pi' || role === 'analyst';
   const groups = useGroupList(labId);
+  const exportStep = useExportStep(labId, study);
   const chosen = stepParameters<StepParameters['groups']>(study, 'groups')?.groupVersionIds ?? [];
   const chosenVersions = (groups.data?.groups ?? []).flatMap((g) => g.versions.filter((v) => chosen.includes(v.id)));
   // Students run the check (it computes, changes no group) once every chosen group is vetted.
@@ -49,7 +51,8 @@ export function NotebookCards(props: Props) {
 
   return (
     <Stack gap="md">
-      {study.steps.map((step) => {
+      {study.steps.map((stored) => {
+        const step = stored.key === 'export' && exportStep ? exportStep : stored;
         const blocker = blockerOf(step.key);
         const readOnly = locked || blocker !== null || role === 'guest';
         const card: CardProps = {

@@ -39,6 +39,7 @@ function answers(
     [`GET ${base}/studies/${STUDY}/check-results`]: () => ({ body: checkResults }),
     [`GET ${base}/studies/${STUDY}/overrides`]: () => ({ body: { overrides: [] } }),
     [`GET ${base}/runs/${current.steps[4].runId}/assignments`]: () => ({ body: assignmentsPage }),
+    [`GET ${base}/studies/${STUDY}/bundles`]: () => ({ body: { bundles: [] } }),
     ...overrides,
   });
 }
@@ -190,6 +191,38 @@ describe('NotebookPage', () => {
     expect(await within(card(/Group check/)).findByText(/analysts and PIs exclude members/)).toBeInTheDocument();
     expect(within(card(/Group check/)).getByRole('button', { name: 'Run group check again' })).toBeEnabled();
     expect(within(card(/Group check/)).queryByRole('button', { name: 'Exclude member' })).not.toBeInTheDocument();
+  });
+
+  it('reads the Export card as current once a bundle is built, its origin in full', async () => {
+    answers('pi', {
+      [`GET ${base}/studies/${STUDY}/bundles`]: () => ({
+        body: {
+          bundles: [
+            {
+              id: '44444444-4444-4444-8444-444444444444',
+              studyId: STUDY,
+              origin: 'built',
+              runId: null,
+              status: 'succeeded',
+              error: null,
+              filename: 'provenote-bundle-synthetic-reservoir-core-2026-01-15.zip',
+              sizeBytes: 20480,
+              sha256: 'ab'.repeat(32),
+              createdBy: 'Test PI',
+              createdAt: '2026-01-15T10:30:00.000Z',
+            },
+          ],
+        },
+      }),
+    });
+    renderRoutes(routes, `/labs/${LAB}/studies/${STUDY}`);
+    const exportCard = await screen.findByRole('region', { name: /Export/ });
+    expect(await within(exportCard).findByText('Current')).toBeInTheDocument();
+    expect(within(exportCard).queryByText('Not run')).not.toBeInTheDocument();
+    const origin = within(exportCard).getByText('built here');
+    // Mantine clips a badge's label with an ellipsis; the origin must not be cut off in a narrow column.
+    expect(origin).toHaveStyle({ overflow: 'visible' });
+    expect(origin.closest('.mantine-Badge-root')).toHaveStyle({ overflow: 'visible' });
   });
 
   it('offers guests no changes and a signed-off study none to anyone', async () => {
