@@ -9,9 +9,9 @@ import {
   type MemberOutcome,
 } from '@provenote/shared/schemas';
 import { errorMessage } from '../../../app/api-client';
+import { formatProbability as fmtP } from '../../../lib/probability';
 import { useCheckResults } from '../api/check-results';
 
-const fmtP = (p: number) => (p < 0.001 ? p.toExponential(2) : p.toFixed(3));
 /** Short pages keep the notebook readable; a reader who wants more asks for them. */
 const PAGE_SIZES = [15, 50, 100];
 
@@ -98,25 +98,31 @@ export function CheckResults({ labId, studyId, runId, onExclude }: Props) {
         page={page}
         onPageChange={setPage}
         noRecordsText="No members match"
+        // Ids and numbers keep to one line and the table scrolls sideways instead; the Exclude column stays
+        // pinned at the right edge so it can be reached at laptop width.
+        pinLastColumn={onExclude !== undefined}
         columns={[
-          { accessor: 'sampleId', title: 'Sample' },
+          { accessor: 'sampleId', title: 'Sample', noWrap: true },
           { accessor: 'group', title: 'Group' },
           { accessor: 'outcome', title: 'Left out', render: (r) => memberOutcomeLabels[r.outcome] },
           { accessor: 'bestGroup', title: 'Best group' },
           {
             accessor: 'd2LeaveOneOut',
+            noWrap: true,
             title: 'D² left out',
             textAlign: 'right',
             render: (r) => r.d2LeaveOneOut.toFixed(2),
           },
           {
             accessor: 'pHotellingLeaveOneOut',
+            noWrap: true,
             title: 'p (Hotelling)',
             textAlign: 'right',
             render: (r) => fmtP(r.pHotellingLeaveOneOut),
           },
           {
             accessor: 'pChi2LeaveOneOut',
+            noWrap: true,
             title: 'p (χ²)',
             textAlign: 'right',
             render: (r) => fmtP(r.pChi2LeaveOneOut),
@@ -124,6 +130,7 @@ export function CheckResults({ labId, studyId, runId, onExclude }: Props) {
           {
             accessor: 'flaggedByRobustFit',
             title: 'Robust fit',
+            noWrap: true,
             render: (r) =>
               r.robustD2 === null ? (
                 <Text size="xs" c="dimmed">
@@ -144,7 +151,8 @@ export function CheckResults({ labId, studyId, runId, onExclude }: Props) {
             ? [
                 {
                   accessor: 'exclude',
-                  title: '',
+                  title: 'Exclude',
+                  noWrap: true,
                   render: (r: Row) => (
                     <Button
                       size="compact-xs"

@@ -48,6 +48,10 @@ function renderCard(onSave = vi.fn()) {
   return onSave;
 }
 
+/** 1-based position of a column in the table's header, for picking the same cell in a row. */
+const columnIndex = (table: HTMLElement, accessor: string) =>
+  [...table.querySelectorAll('thead th')].findIndex((th) => th.getAttribute('data-accessor') === accessor) + 1;
+
 const requestedUrls = () => vi.mocked(fetch).mock.calls.map(([url]) => String(url));
 
 describe('CheckCard: robust fit', () => {
@@ -60,6 +64,7 @@ describe('CheckCard: robust fit', () => {
   afterEach(() => {
     window.matchMedia = setupMatchMedia;
     vi.unstubAllGlobals();
+    vi.restoreAllMocks();
   });
 
   it('shows the robust D² with a flag, the caution, and why a group has no robust fit', async () => {
@@ -70,6 +75,21 @@ describe('CheckCard: robust fit', () => {
     expect(within(row).getByText('Flagged')).toBeInTheDocument();
     expect(screen.getByText(/statistical evidence that a member lies apart from its group, not proof/)).toBeVisible();
     expect(screen.getByText(/South fan: 3 members is too few for a robust fit/)).toBeVisible();
+  });
+
+  it('keeps ids and numbers on one line and pins the Exclude column at the right edge', async () => {
+    // The table places pinned columns from their measured widths, which jsdom reports as 0.
+    vi.spyOn(HTMLElement.prototype, 'getBoundingClientRect').mockReturnValue(new DOMRect(0, 0, 120, 30));
+    renderCard();
+    const table = await screen.findByRole('table', { name: 'Leave-one-out results per member' });
+    const row = within(table).getByText('N2').closest('tr')!;
+    const cell = (accessor: string) => row.querySelector(`td:nth-child(${columnIndex(table, accessor)})`)!;
+    for (const accessor of ['sampleId', 'd2LeaveOneOut', 'pHotellingLeaveOneOut', 'pChi2LeaveOneOut']) {
+      expect(cell(accessor)).toHaveClass('mantine-datatable-nowrap');
+    }
+    const exclude = within(row).getByRole('button', { name: 'Exclude N2 from North ridge' }).closest('td')!;
+    await vi.waitFor(() => expect(exclude).toHaveAttribute('data-pinned', 'right'));
+    expect(exclude).toHaveClass('mantine-datatable-nowrap');
   });
 
   it('asks the API for flagged members only when the filter is ticked', async () => {
