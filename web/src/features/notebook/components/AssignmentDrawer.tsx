@@ -1,5 +1,6 @@
 import { Drawer, Stack, Table, Text, Title } from '@mantine/core';
 import type { AssignmentRow, AssignmentsPage } from '@provenote/shared/schemas';
+import { formatOptionalProbability, formatProbability as fmt } from '../../../lib/probability';
 import { EvidenceCaution } from './EvidenceCaution';
 import { OverrideForm } from './OverrideForm';
 
@@ -12,8 +13,6 @@ interface Props {
   variables: string[];
   onClose: () => void;
 }
-
-const fmt = (p: number) => (p < 0.001 ? p.toExponential(2) : p.toFixed(3));
 
 /** One unknown in detail: its probability for every group and which elements drive its distance. */
 export function AssignmentDrawer({ labId, studyId, canOverride, row, groups, variables, onClose }: Props) {
@@ -29,7 +28,7 @@ export function AssignmentDrawer({ labId, studyId, canOverride, row, groups, var
         <Stack>
           <Text>
             Verdict <b>{row.verdict}</b>; best group <b>{row.group}</b> ({fmt(row.probability)})
-            {row.runnerUp && `, runner-up ${row.runnerUp} (${fmt(row.runnerUpProbability ?? 0)})`}.
+            {row.runnerUp && `, runner-up ${row.runnerUp} (${formatOptionalProbability(row.runnerUpProbability)})`}.
           </Text>
           <EvidenceCaution />
           <OverrideForm
