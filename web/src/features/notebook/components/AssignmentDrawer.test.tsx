@@ -1,13 +1,15 @@
 import { screen, within } from '@testing-library/react';
 import { afterEach, describe, expect, it, vi } from 'vitest';
+import type { AssignmentRow } from '@provenote/shared/schemas';
 import { render } from '../../../test-utils/render';
 import { fakeApi } from '../test/fake-api';
 import { assignmentsPage, LAB, STUDY } from '../test/notebook-fixtures';
 import { AssignmentDrawer } from './AssignmentDrawer';
 
 // South fan is so far that its χ² tail underflows to an exact 0 in double precision.
-const row = {
+const row: AssignmentRow = {
   ...assignmentsPage.rows[0],
+  verdict: 'assigned',
   sampleId: 'TR2-031',
   group: 'North ridge',
   probability: 0.37,
