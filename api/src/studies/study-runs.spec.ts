@@ -203,12 +203,14 @@ describe('running the notebook cards on the queue (HTTP, PostgreSQL, Redis)', ()
     );
     expect(finalAssigned.body.total).toBe(computedAssigned.length + 1);
     expect(finalAssigned.body.rows.map((r: { sampleId: string }) => r.sampleId)).toContain('UN1');
-    if (computed.verdict !== 'assigned') {
-      const stillComputed = await agent
-        .get(`${base()}/runs/${assignRun}/assignments?finalVerdict=${computed.verdict}`)
-        .expect(200);
-      expect(stillComputed.body.rows.map((r: { sampleId: string }) => r.sampleId)).not.toContain('UN1');
+    for (const other of ['ambiguous', 'unassigned']) {
+      const final = await agent.get(`${base()}/runs/${assignRun}/assignments?finalVerdict=${other}`).expect(200);
+      expect(final.body.rows.map((r: { sampleId: string }) => r.sampleId)).not.toContain('UN1');
     }
+    const byComputed = await agent
+      .get(`${base()}/runs/${assignRun}/assignments?verdict=${computed.verdict}`)
+      .expect(200);
+    expect(byComputed.body.rows.map((r: { sampleId: string }) => r.sampleId)).toContain('UN1');
 
     await members.pi.agent.post(`${base()}/studies/${study.id}/sign-off`).send({}).expect(201);
     await agent.post(`${steps}/assign/run`).expect(409);
