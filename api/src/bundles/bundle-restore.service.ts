@@ -157,9 +157,13 @@ export class BundleRestoreService {
       ownerId: user.id,
       signedOffAt: now,
       signedOffById: user.id,
+      // The lock is the restoring user's; the original sign-off (absent in older bundles) is quoted.
       signOffStatement:
         `Restored read-only from the verified result bundle ${filename} (SHA-256 ${sha256}), ` +
-        `built ${manifest.createdAt} by ${manifest.createdBy.name} in ${manifest.lab.name}.`,
+        `built ${manifest.createdAt} by ${manifest.createdBy.name} in ${manifest.lab.name}.` +
+        (manifest.signOff
+          ? ` Signed off there by ${manifest.signOff.by.name} at ${manifest.signOff.at}: "${manifest.signOff.statement}"`
+          : ''),
     });
   }
 

@@ -238,6 +238,11 @@ describe('result bundles over HTTP (PostgreSQL, Redis, the bundle job)', () => {
       const study = `${base()}/studies/${opened.studyId}`;
       const restored: Study = (await members.guest.agent.get(study).expect(200)).body;
       expect(restored.status).toBe('signed_off');
+      const [{ statement }] = await testApp.app
+        .get(DataSource)
+        .query(`SELECT sign_off_statement AS statement FROM studies WHERE id = $1`, [opened.studyId]);
+      // The restored copy is locked by whoever restored it, and quotes the original sign-off.
+      expect(statement).toContain(`Signed off there by ${members.pi.user.displayName} at `);
       const assign = restored.steps.find((s) => s.key === 'assign')!;
       expect(assign.status).toBe('current');
 
