@@ -1,35 +1,13 @@
 import { screen, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
-import type { ReferenceGroup } from '@provenote/shared/schemas';
 import { render } from '../../../test-utils/render';
 import { fakeApi } from '../../notebook/test/fake-api';
-import { LAB, REFERENCE_VERSION, referenceDataset } from '../../notebook/test/notebook-fixtures';
+import { LAB, northRidge, REFERENCE_VERSION, referenceDataset } from '../../notebook/test/notebook-fixtures';
 import { EditGroupModal } from './EditGroupModal';
 
 const base = `/api/labs/${LAB}`;
-const group: ReferenceGroup = {
-  id: 'aaaaaaaa-aaaa-4aaa-8aaa-aaaaaaaaaaaa',
-  labId: LAB,
-  name: 'North ridge',
-  description: 'Synthetic granite outcrops',
-  createdAt: '2025-05-01T10:00:00.000Z',
-  versions: [
-    {
-      id: 'bbbbbbbb-bbbb-4bbb-8bbb-bbbbbbbbbbbb',
-      groupId: 'aaaaaaaa-aaaa-4aaa-8aaa-aaaaaaaaaaaa',
-      number: 1,
-      datasetVersionId: REFERENCE_VERSION,
-      source: 'column',
-      memberIds: ['N1', 'N2', 'N3'],
-      note: '',
-      createdAt: '2025-05-01T10:00:00.000Z',
-      createdBy: 'Ada Analyst',
-      approvedAt: '2025-05-01T11:00:00.000Z',
-      approvedBy: 'Ada Analyst',
-    },
-  ],
-};
+const group = northRidge(true);
 const rows = ['N1', 'N2', 'N3', 'N4'].map((sampleId, row) => ({
   row,
   sampleId,

@@ -1,4 +1,4 @@
-import type { Dataset, StepKey, StepStatus, Study } from '@provenote/shared/schemas';
+import type { Dataset, ReferenceGroup, StepKey, StepStatus, Study } from '@provenote/shared/schemas';
 
 export const LAB = '11111111-1111-4111-8111-111111111111';
 export const STUDY = '22222222-2222-4222-8222-222222222222';
@@ -89,6 +89,30 @@ export const referenceDataset: Dataset = {
     },
   ],
 };
+
+/** The North ridge group, one column-built version of three members, approved or not. */
+export const northRidge = (approved: boolean): ReferenceGroup => ({
+  id: 'aaaaaaaa-aaaa-4aaa-8aaa-aaaaaaaaaaaa',
+  labId: LAB,
+  name: 'North ridge',
+  description: 'Synthetic granite outcrops',
+  createdAt: '2025-05-01T10:00:00.000Z',
+  versions: [
+    {
+      id: 'bbbbbbbb-bbbb-4bbb-8bbb-bbbbbbbbbbbb',
+      groupId: 'aaaaaaaa-aaaa-4aaa-8aaa-aaaaaaaaaaaa',
+      number: 1,
+      datasetVersionId: REFERENCE_VERSION,
+      source: 'column',
+      memberIds: ['N1', 'N2', 'N3'],
+      note: '',
+      createdAt: '2025-05-01T10:00:00.000Z',
+      createdBy: 'Ada Analyst',
+      approvedAt: approved ? '2025-05-01T11:00:00.000Z' : null,
+      approvedBy: approved ? 'Ada Analyst' : null,
+    },
+  ],
+});
 
 export const groupSizes = {
   p: 1,
