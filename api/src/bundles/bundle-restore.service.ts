@@ -1,7 +1,8 @@
 import { createHash } from 'node:crypto';
 import { Injectable, UnprocessableEntityException } from '@nestjs/common';
 import { InjectDataSource } from '@nestjs/typeorm';
-import { DataSource, type EntityManager } from 'typeorm';
+import { DataSource, type EntityManager, type EntityTarget, type ObjectLiteral } from 'typeorm';
+import type { QueryDeepPartialEntity } from 'typeorm/query-builder/QueryPartialEntity';
 import {
   defaultStepParameters,
   prepareStepParametersSchema,
@@ -195,9 +196,7 @@ export class BundleRestoreService {
       // Bundles made before results/contributions.csv do not carry them; an empty list says so rather than inventing them.
       contributions: contributions.get(a.sampleId) ?? [],
     }));
-    for (let from = 0; from < rows.length; from += 500) {
-      await manager.getRepository(RunAssignmentEntity).insert(rows.slice(from, from + 500));
-    }
+    await insertInSlices(manager, RunAssignmentEntity, rows);
     return run.id;
   }
 
@@ -213,9 +212,7 @@ export class BundleRestoreService {
   ): Promise<string> {
     const run = await this.insertRun(manager, labId, studyId, user, manifest, plan, 'group-check', check.summary);
     const members = check.members.map((member) => ({ runId: run.id, ...member }));
-    for (let from = 0; from < members.length; from += 500) {
-      await manager.getRepository(RunCheckMemberEntity).insert(members.slice(from, from + 500));
-    }
+    await insertInSlices(manager, RunCheckMemberEntity, members);
     await manager.getRepository(RunCheckPairEntity).insert(check.pairs.map((pair) => ({ runId: run.id, ...pair })));
     return run.id;
   }
@@ -292,5 +289,16 @@ export class BundleRestoreService {
         updatedById: user.id,
       })),
     );
+  }
+}
+
+/** Inserts rows 500 at a time, keeping each statement well under PostgreSQL's 65,535 bind parameters. */
+async function insertInSlices<T extends ObjectLiteral>(
+  manager: EntityManager,
+  entity: EntityTarget<T>,
+  rows: QueryDeepPartialEntity<T>[],
+): Promise<void> {
+  for (let from = 0; from < rows.length; from += 500) {
+    await manager.getRepository(entity).insert(rows.slice(from, from + 500));
   }
 }
