@@ -12,6 +12,7 @@ interface ThrowawayServices {
   stop(): Promise<void>;
 }
 interface LocalServices {
+  ensureSystemPackages(names: string[], log?: (line: string) => void): void;
   startThrowawayServices(): Promise<ThrowawayServices>;
   freePort(): Promise<number>;
 }
@@ -169,6 +170,8 @@ export function benchStack(log: (line: string) => void): Promise<BenchStack> {
       // As in bench.cjs: tsc still emits JavaScript when it reports type errors (often someone's work in progress).
       log('warning: the TypeScript build of api reported errors; measuring the JavaScript it emitted');
     }
+    // As npm start and npm test do: Debian's PostgreSQL, Redis and Chromium, installed on first use.
+    localServices.ensureSystemPackages(['postgres', 'redis', 'chromium'], log);
     const services = await localServices.startThrowawayServices();
     const stack = new RunningStack(services, await localServices.freePort());
     try {
