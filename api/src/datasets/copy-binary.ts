@@ -13,11 +13,14 @@ export const PG_OID = { int2: 21, text: 25, float8: 701 } as const;
 
 export class BinaryCopyWriter {
   private buffer: Buffer;
+  /** Over `buffer`: DataView's big-endian writes are several times faster than Buffer's writeXxxBE. */
+  private view: DataView;
   private offset = 0;
 
   /** `expectedBytes`: a good guess spares copying the stream each time the buffer has to grow. */
   constructor(expectedBytes = 1 << 16) {
     this.buffer = Buffer.allocUnsafe(Math.max(expectedBytes, 64));
+    this.view = viewOf(this.buffer);
     this.reserve(SIGNATURE.length + 8);
     this.offset += SIGNATURE.copy(this.buffer, this.offset);
     this.int32(0); // flags: no OIDs
@@ -27,7 +30,7 @@ export class BinaryCopyWriter {
   /** Starts a tuple of `fields` fields; each field is then written with one of the field methods. */
   tuple(fields: number): void {
     this.reserve(2);
-    this.offset = this.buffer.writeInt16BE(fields, this.offset);
+    this.int16(fields);
   }
 
   null(): void {
@@ -44,7 +47,8 @@ export class BinaryCopyWriter {
   uuid(hex: Buffer): void {
     this.reserve(20);
     this.int32(16);
-    this.offset += hex.copy(this.buffer, this.offset);
+    this.buffer.set(hex, this.offset);
+    this.offset += 16;
   }
 
   text(value: string | null): void {
@@ -54,6 +58,12 @@ export class BinaryCopyWriter {
     const length = this.buffer.write(value, start, 'utf8');
     this.int32(length);
     this.offset = start + length;
+  }
+
+  /** The length word of a field whose `length` bytes the caller sends itself, right after what is written so far. */
+  bytesLength(length: number): void {
+    this.reserve(4);
+    this.int32(length);
   }
 
   /** jsonb's binary input: a version byte (1) and the JSON text. */
@@ -72,15 +82,16 @@ export class BinaryCopyWriter {
     if (value === null) return this.null();
     this.reserve(12);
     this.int32(8);
-    this.offset = this.buffer.writeDoubleBE(value, this.offset);
+    this.view.setFloat64(this.offset, value);
+    this.offset += 8;
   }
 
   float8Array(values: ArrayLike<number | null>): void {
-    this.array(values, PG_OID.float8, 8, (value, at) => this.buffer.writeDoubleBE(value, at));
+    this.array(values, PG_OID.float8, 8, (value, at) => this.view.setFloat64(at, value));
   }
 
   int2Array(values: readonly number[]): void {
-    this.array(values, PG_OID.int2, 2, (value, at) => this.buffer.writeInt16BE(value, at));
+    this.array(values, PG_OID.int2, 2, (value, at) => this.view.setInt16(at, value));
   }
 
   textArray(values: readonly (string | null)[]): void {
@@ -92,7 +103,8 @@ export class BinaryCopyWriter {
   /** Writes again the bytes of a field written earlier (from `fieldStart`), e.g. a second identical array. */
   repeat(fieldStart: number, fieldEnd: number): void {
     this.reserve(fieldEnd - fieldStart);
-    this.offset += this.buffer.copy(this.buffer, this.offset, fieldStart, fieldEnd);
+    this.buffer.copyWithin(this.offset, fieldStart, fieldEnd);
+    this.offset += fieldEnd - fieldStart;
   }
 
   get position(): number {
@@ -102,7 +114,7 @@ export class BinaryCopyWriter {
   /** The whole COPY stream, trailer included; the writer is not used afterwards. */
   finish(): Buffer {
     this.reserve(2);
-    this.offset = this.buffer.writeInt16BE(-1, this.offset);
+    this.int16(-1);
     return this.buffer.subarray(0, this.offset);
   }
 
@@ -143,11 +155,17 @@ export class BinaryCopyWriter {
   }
 
   private closeField(start: number): void {
-    this.buffer.writeInt32BE(this.offset - start - 4, start);
+    this.view.setInt32(start, this.offset - start - 4);
+  }
+
+  private int16(value: number): void {
+    this.view.setInt16(this.offset, value);
+    this.offset += 2;
   }
 
   private int32(value: number): void {
-    this.offset = this.buffer.writeInt32BE(value, this.offset);
+    this.view.setInt32(this.offset, value);
+    this.offset += 4;
   }
 
   private reserve(bytes: number): void {
@@ -155,8 +173,11 @@ export class BinaryCopyWriter {
     const grown = Buffer.allocUnsafe(Math.max(this.buffer.length * 2, this.offset + bytes));
     this.buffer.copy(grown, 0, 0, this.offset);
     this.buffer = grown;
+    this.view = viewOf(grown);
   }
 }
+
+const viewOf = (buffer: Buffer) => new DataView(buffer.buffer, buffer.byteOffset, buffer.byteLength);
 
 /** A uuid's 16 bytes, from its canonical text. */
 export function uuidBytes(uuid: string): Buffer {

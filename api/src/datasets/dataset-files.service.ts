@@ -5,6 +5,7 @@ import type { DatasetMapping, FileLayout, ImportPreview, Problem } from '@proven
 import { Repository } from 'typeorm';
 import { RateLimitService } from '../rate-limit/rate-limit.service';
 import { DatasetFile } from './dataset-file.entity';
+import { insertFile, readFileContent } from './dataset-file-content';
 import { fileView, rowView } from './dataset-views';
 import { asHttpErrors } from './import-failures';
 import type { ImportedRow } from './parsing/import-rows';
@@ -36,17 +37,16 @@ export class DatasetFilesService {
     });
     return asHttpErrors(async () => {
       const analysis = await analyseFile(content, filename);
-      const file = await this.files.save(
-        this.files.create({
-          labId,
-          filename,
-          format: detectFormat(content, filename),
-          sizeBytes: content.length,
-          sha256: createHash('sha256').update(content).digest('hex'),
-          content,
-          uploadedBy: userId,
-        }),
-      );
+      const id = await insertFile(this.files.manager.connection, {
+        labId,
+        filename,
+        format: detectFormat(content, filename),
+        sizeBytes: content.length,
+        sha256: createHash('sha256').update(content).digest('hex'),
+        content,
+        uploadedBy: userId,
+      });
+      const file = await this.files.findOneByOrFail({ id });
       const saved = await this.savedMappings.findOne({ where: { labId, fingerprint: analysis.layout.fingerprint } });
       const useSaved = saved !== null && fitsLayout(saved.mapping, analysis.layout);
       return {
@@ -82,12 +82,10 @@ export class DatasetFilesService {
   }
 
   async withContent(labId: string, fileId: string): Promise<DatasetFile> {
-    const file = await this.files
-      .createQueryBuilder('file')
-      .addSelect('file.content')
-      .where('file.id = :fileId AND file.lab_id = :labId', { fileId, labId })
-      .getOne();
-    if (!file) throw new NotFoundException('No such uploaded file in this lab');
+    const file = await this.files.findOneBy({ id: fileId, labId });
+    const content = file && (await readFileContent(this.files.manager.connection, labId, fileId));
+    if (!file || !content) throw new NotFoundException('No such uploaded file in this lab');
+    file.content = content;
     return file;
   }
 }

@@ -22,23 +22,25 @@ function looksBinary(bytes: Uint8Array): boolean {
   return control > sample.length / 100;
 }
 
-/** The file's encoding as detected: a BOM or valid UTF-8 means UTF-8, anything else is read as Windows Latin-1. */
-export function detectEncoding(bytes: Uint8Array): TextEncoding {
-  if (hasUtf8Bom(bytes)) return 'utf-8';
-  try {
-    new TextDecoder('utf-8', { fatal: true }).decode(bytes);
-    return 'utf-8';
-  } catch {
-    return 'windows-1252';
-  }
-}
-
-/** Decodes a text file; the BOM is dropped so it never sticks to the first header. */
-export function decodeText(bytes: Uint8Array, encoding: TextEncoding): string {
+/**
+ * Decodes a text file in the given encoding, or, without one, in the encoding detected: a BOM or valid
+ * UTF-8 means UTF-8, anything else is read as Windows Latin-1. The BOM is dropped so it never sticks to the
+ * first header. A detected UTF-8 file is decoded once, by the same pass that checks it.
+ */
+export function decodeText(bytes: Uint8Array, encoding: TextEncoding | null): { text: string; encoding: TextEncoding } {
   if (bytes.length === 0) throw new FileRejectedError('empty-file', 'The file is empty');
   if (looksBinary(bytes)) {
     throw new FileRejectedError('binary-file', 'This is not a text table (CSV or TSV) or an .xlsx workbook');
   }
-  const body = encoding === 'utf-8' && hasUtf8Bom(bytes) ? bytes.subarray(3) : bytes;
-  return new TextDecoder(encoding).decode(body);
+  const bom = hasUtf8Bom(bytes);
+  if (encoding === null) {
+    try {
+      return { text: new TextDecoder('utf-8', { fatal: true }).decode(bytes), encoding: 'utf-8' };
+    } catch {
+      if (bom) return { text: new TextDecoder('utf-8').decode(bytes), encoding: 'utf-8' };
+      return { text: new TextDecoder('windows-1252').decode(bytes), encoding: 'windows-1252' };
+    }
+  }
+  const body = encoding === 'utf-8' && bom ? bytes.subarray(3) : bytes;
+  return { text: new TextDecoder(encoding).decode(body), encoding };
 }

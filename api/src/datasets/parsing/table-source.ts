@@ -1,7 +1,7 @@
 import { Readable } from 'node:stream';
 import { parse } from 'csv-parse';
 import ExcelJS from 'exceljs';
-import { type TextEncoding, decodeText, detectEncoding } from './decode-text';
+import { type TextEncoding, decodeText } from './decode-text';
 import { FileRejectedError } from './import-errors';
 import { type Delimiter, sniffDelimiter } from './sniff-delimiter';
 import { assertSafeZip } from './zip-guard';
@@ -54,8 +54,7 @@ export async function openTable(bytes: Buffer, filename: string, options: OpenOp
 }
 
 function openText(bytes: Buffer, options: OpenOptions): TableSource {
-  const encoding = options.encoding ?? detectEncoding(bytes);
-  const text = decodeText(bytes, encoding);
+  const { text, encoding } = decodeText(bytes, options.encoding ?? null);
   if (text.trim() === '') throw new FileRejectedError('empty-file', 'The file holds no text');
   const delimiter = options.delimiter ?? sniffDelimiter(text);
   return {
