@@ -103,4 +103,26 @@ describe('dataset rows written with COPY', () => {
       ['1e-3', null, null],
     ]);
   });
+  it('keeps each row its own flags and text across COPY batches where most rows share them', async () => {
+    // 2,500 rows: more than two of the importer's batches; every seventh row has a below-detection cell.
+    const lines = ['sample,Zr,Nb'];
+    for (let i = 1; i <= 2500; i++) lines.push(`S${i},${i}.25,${i % 7 === 0 ? '<0.5' : `${i}`}`);
+    const versionId = await importCsv('batches.csv', 'unknowns', lines.join('\n'));
+    const rows: { position: number; ppm: number[]; original: number[]; flags: number[]; raw: (string | null)[] }[] =
+      await testApp.app
+        .get(DataSource)
+        .query(`SELECT position, ppm, original, flags, raw FROM dataset_rows WHERE version_id = $1 ORDER BY position`, [
+          versionId,
+        ]);
+    expect(rows).toHaveLength(2500);
+    const measured = cellFlags.indexOf('measured');
+    const below = cellFlags.indexOf('below_dl');
+    for (const row of rows) {
+      const flagged = row.position % 7 === 0;
+      expect(row.ppm).toEqual([row.position + 0.25, flagged ? 0.5 : row.position]);
+      expect(row.original).toEqual(row.ppm);
+      expect(row.flags).toEqual([measured, flagged ? below : measured]);
+      expect(row.raw).toEqual([null, flagged ? '<0.5' : null]);
+    }
+  });
 });

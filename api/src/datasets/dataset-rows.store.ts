@@ -10,15 +10,27 @@ import type { ImportedRow } from './parsing/import-rows';
 const ROW_COLUMNS = 'version_id, position, source_row, sample_id, group_name, ppm, original, flags, raw, attributes';
 const ROW_FIELDS = 10;
 
-function sameValues(a: (number | null)[], b: (number | null)[]): boolean {
-  return a.length === b.length && a.every((value, i) => Object.is(value, b[i]));
+function sameValues(a: readonly (number | null)[], b: readonly (number | null)[]): boolean {
+  return a === b || (a.length === b.length && a.every((value, i) => Object.is(value, b[i])));
 }
 
-/** A batch of dataset_rows as one binary COPY stream, fields in the order of ROW_COLUMNS. */
+/**
+ * A batch of dataset_rows as one binary COPY stream, fields in the order of ROW_COLUMNS. Arrays that rows
+ * share (the import's one all-measured flags array and one all-null text array) are encoded once per batch
+ * and their bytes repeated.
+ */
 export function copyRows(versionId: string, rows: readonly ImportedRow[]): Buffer {
   const version = uuidBytes(versionId);
   const width = rows[0]?.ppm.length ?? 0;
   const writer = new BinaryCopyWriter(rows.length * (160 + 40 * width));
+  const encoded = new Map<readonly unknown[], { start: number; end: number }>();
+  const once = <T>(values: readonly T[], encode: (values: readonly T[]) => void) => {
+    const earlier = encoded.get(values);
+    if (earlier) return writer.repeat(earlier.start, earlier.end);
+    const start = writer.position;
+    encode(values);
+    if (Object.isFrozen(values)) encoded.set(values, { start, end: writer.position });
+  };
   for (const row of rows) {
     writer.tuple(ROW_FIELDS);
     writer.uuid(version);
@@ -31,8 +43,8 @@ export function copyRows(versionId: string, rows: readonly ImportedRow[]): Buffe
     // Most files are in ppm already: the original values are then the same bytes, encoded once.
     if (sameValues(row.ppm, row.original)) writer.repeat(ppmStart, writer.position);
     else writer.float8Array(row.original);
-    writer.int2Array(row.flags);
-    writer.textArray(row.raw);
+    once(row.flags, (flags) => writer.int2Array(flags));
+    once(row.raw, (raw) => writer.textArray(raw));
     writer.jsonb(row.attributes);
   }
   return writer.finish();

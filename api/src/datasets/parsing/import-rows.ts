@@ -1,6 +1,6 @@
 import { type CellFlag, type ImportSummary, type Problem, cellFlags, cellFlagLabels } from '@provenote/shared';
 import { type Layout, cellText, isBlankRow } from './layout';
-import { isPlainNumber, readCell } from './read-cell';
+import { isPlainNumber, readCell, readPlainDecimal } from './read-cell';
 import type { ResolvedMapping } from './resolve-columns';
 import type { RawRow, TableSource } from './table-source';
 
@@ -11,11 +11,12 @@ export interface ImportedRow {
   sampleId: string;
   group: string | null;
   ppm: (number | null)[];
+  /** The same array as `ppm` when every measurement column is in ppm already. */
   original: (number | null)[];
-  /** Positions in `cellFlags`. */
-  flags: number[];
-  /** The cell's text wherever it was not a plain number. */
-  raw: (string | null)[];
+  /** Positions in `cellFlags`. Rows with every cell measured share one frozen array. */
+  flags: readonly number[];
+  /** The cell's text wherever it was not a plain number. Rows of plain numbers share one frozen array. */
+  raw: readonly (string | null)[];
   attributes: Record<string, string> | null;
 }
 
@@ -24,7 +25,22 @@ export interface ImportSink {
   problems(batch: Problem[]): Promise<void>;
 }
 
-const BATCH = 5000;
+/** Rows per COPY: small enough that a batch fits the socket's buffer while the next one is read. */
+const BATCH = 1000;
+
+/** For rows whose cells are all measured plain numbers, one frozen flags array and one raw array per width. */
+const SHARED = new Map<number, { measured: readonly number[]; noText: readonly null[] }>();
+function sharedArrays(width: number) {
+  let arrays = SHARED.get(width);
+  if (!arrays) {
+    arrays = {
+      measured: Object.freeze(new Array<number>(width).fill(MEASURED)),
+      noText: Object.freeze(new Array<null>(width).fill(null)),
+    };
+    SHARED.set(width, arrays);
+  }
+  return arrays;
+}
 const FLAG_CODE = new Map<CellFlag, number>(cellFlags.map((flag, i) => [flag, i]));
 const MEASURED = FLAG_CODE.get('measured')!;
 
@@ -53,8 +69,13 @@ export async function importRows(
   const rows: ImportedRow[] = [];
   const problems: Problem[] = [];
   const flush = async (force: boolean) => {
+    const full = rows.length >= BATCH || problems.length >= BATCH;
     if (rows.length > 0 && (force || rows.length >= BATCH)) await sink.rows(rows.splice(0));
     if (problems.length > 0 && (force || problems.length >= BATCH)) await sink.problems(problems.splice(0));
+    // Reading a file never waits on I/O, so without a turn of the event loop the batch just handed over
+    // would sit in the socket's queue until the whole file was read: the database would idle while rows
+    // are read, and the other way round.
+    if (full) await new Promise((resolve) => setImmediate(resolve));
   };
   const headerOf = (index: number) => layout.headers[index] ?? `Column ${index + 1}`;
 
@@ -80,10 +101,13 @@ export async function importRows(
     const problem = (column: string | null, raw: string | null, code: string, message: string, action: string) =>
       rowProblems.push({ row: rawRow.row, column, raw, code, message, action });
 
-    const extra = rawRow.cells
-      .slice(layout.width)
-      .map(cellText)
-      .filter((text) => text !== '');
+    const extra =
+      rawRow.cells.length > layout.width
+        ? rawRow.cells
+            .slice(layout.width)
+            .map(cellText)
+            .filter((text) => text !== '')
+        : [];
     const sampleId = cellText(rawRow.cells[mapping.sampleIdIndex]);
     if (extra.length > 0 || sampleId === '') {
       summary.rejected++;
@@ -153,32 +177,38 @@ function readMeasurements(
   problem: ProblemFn,
   position: number,
 ): ImportedRow {
-  const count = mapping.measurements.length;
+  const { measurements } = mapping;
+  const count = measurements.length;
+  const shared = sharedArrays(count);
   const ppm: (number | null)[] = new Array(count);
-  const original: (number | null)[] = new Array(count);
-  const flags: number[] = new Array(count);
-  const raw: (string | null)[] = new Array(count);
+  // Most files are in ppm already: their original values are the ppm values, one array for both.
+  const original: (number | null)[] = mapping.allInPpm ? ppm : new Array(count);
+  let flags: readonly number[] = shared.measured;
+  let raw: readonly (string | null)[] = shared.noText;
   const plainDecimals = layout.decimalSeparator === '.' && rawRow.formulas === undefined;
-  mapping.measurements.forEach((column, j) => {
+  for (let j = 0; j < count; j++) {
+    const column = measurements[j];
     const cell = rawRow.cells[column.index] ?? null;
     // Nearly every cell of a large file is a plain non-negative decimal, which needs no problem: read it
-    // here, with no reading object and no second pattern test, exactly as readCell would.
-    if (plainDecimals && typeof cell === 'string' && cell[0] !== '-' && isPlainNumber(cell)) {
-      const value = Number(cell);
-      original[j] = value;
-      ppm[j] = value * column.factorToPpm;
-      flags[j] = MEASURED;
-      raw[j] = null;
-      return;
+    // here, with no reading object and no pattern test, exactly as readCell would.
+    const plain = plainDecimals && typeof cell === 'string' ? readPlainDecimal(cell) : null;
+    if (plain !== null) {
+      original[j] = plain;
+      ppm[j] = plain * column.factorToPpm;
+      continue;
     }
     const reading = readCell(cell, layout.decimalSeparator);
     original[j] = reading.value;
     ppm[j] = reading.value === null ? null : reading.value * column.factorToPpm;
-    flags[j] = FLAG_CODE.get(reading.flag)!;
-    raw[j] = typeof cell === 'string' && cell.trim() !== '' && !isPlainNumber(cell) ? cell : null;
+    const flag = FLAG_CODE.get(reading.flag)!;
+    if (flag !== MEASURED) {
+      if (flags === shared.measured) flags = shared.measured.slice();
+      (flags as number[])[j] = flag;
+    }
+    let text = typeof cell === 'string' && cell.trim() !== '' && !isPlainNumber(cell) ? cell : null;
     const formula = rawRow.formulas?.get(column.index);
     if (formula) {
-      raw[j] = formula;
+      text = formula;
       problem(
         column.header,
         formula,
@@ -186,6 +216,10 @@ function readMeasurements(
         'The cell holds a formula',
         cell === null ? 'no stored result: read as empty' : 'the result stored in the workbook was used',
       );
+    }
+    if (text !== null) {
+      if (raw === shared.noText) raw = shared.noText.slice();
+      (raw as (string | null)[])[j] = text;
     }
     const action = CELL_ACTIONS[reading.flag];
     if (action)
@@ -196,7 +230,7 @@ function readMeasurements(
         cellFlagLabels[reading.flag],
         action.action,
       );
-  });
+  }
   let attributes: Record<string, string> | null = null;
   for (const { index, key } of mapping.attributes) {
     const text = cellText(rawRow.cells[index]);

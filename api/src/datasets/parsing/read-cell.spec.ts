@@ -1,4 +1,5 @@
-import { readCell, readNumber, sniffDecimalSeparator } from './read-cell';
+import fc from 'fast-check';
+import { isPlainNumber, readCell, readNumber, readPlainDecimal, sniffDecimalSeparator } from './read-cell';
 
 describe('readCell', () => {
   it.each([
@@ -59,5 +60,37 @@ describe('sniffDecimalSeparator', () => {
   it('reads files of "1,234"-style cells only with a decimal comma and plain integers with a point', () => {
     expect(sniffDecimalSeparator(['1,234', '2,500'])).toBe(',');
     expect(sniffDecimalSeparator(['12', '340'])).toBe('.');
+  });
+});
+
+describe('readPlainDecimal', () => {
+  // The reference is JavaScript's own Number(text), which ECMAScript requires to round correctly.
+  const decimal = fc
+    .tuple(fc.stringMatching(/^\d{1,20}$/), fc.option(fc.stringMatching(/^\d{1,20}$/)))
+    .map(([whole, fraction]) => (fraction === null ? whole : `${whole}.${fraction}`));
+
+  it('reads every plain non-negative decimal to the same double as Number', () => {
+    fc.assert(
+      fc.property(decimal, (text) => Object.is(readPlainDecimal(text), Number(text))),
+      { numRuns: 20_000 },
+    );
+  });
+
+  it('reads the values where a shortcut would round differently exactly as Number does', () => {
+    // 0.1 + 0.2-style cases and 15/16-digit boundaries, from the shortest round-trip forms of doubles.
+    for (const text of ['0.1', '0.3', '9007199254740993', '999999999999999', '1.000000000000001', '123456.7890123'])
+      expect(readPlainDecimal(text)).toBe(Number(text));
+  });
+
+  it('leaves every other text to the full reader', () => {
+    fc.assert(
+      fc.property(fc.string({ maxLength: 12 }), (text) => {
+        const read = readPlainDecimal(text);
+        return read === null ? !(isPlainNumber(text) && text[0] !== '-') : isPlainNumber(text) && read === Number(text);
+      }),
+      { numRuns: 20_000 },
+    );
+    for (const text of ['', '-1', '12.', '.5', '1e3', '1,5', ' 1', '1 ', '+1', '1.2.3'])
+      expect(readPlainDecimal(text)).toBeNull();
   });
 });

@@ -25,6 +25,38 @@ function numberPattern(decimal: DecimalSeparator): RegExp {
 const PLAIN = /^-?\d+(?:\.\d+)?$/;
 export const isPlainNumber = (text: string): boolean => PLAIN.test(text);
 
+/** 10^0 … 10^22, each exactly a double. */
+const POWERS_OF_TEN = Array.from({ length: 23 }, (_, k) => Number(`1e${k}`));
+const DIGIT_0 = 48;
+const DOT = 46;
+
+/**
+ * A plain non-negative decimal ("12", "0.052") read straight from its characters, or null for any other
+ * text (the caller then reads the cell in full). With at most 15 digits the digits form an exact integer
+ * and the power of ten is exact, so one division is correctly rounded: the same double as Number(text)
+ * (Clinger, "How to read floating point numbers accurately", PLDI 1990, the fast path). Longer numbers
+ * go to Number itself.
+ */
+export function readPlainDecimal(text: string): number | null {
+  const length = text.length;
+  if (length === 0 || length > 15) return length > 15 && PLAIN.test(text) && text[0] !== '-' ? Number(text) : null;
+  let digits = 0;
+  let scale = -1;
+  for (let i = 0; i < length; i++) {
+    const code = text.charCodeAt(i);
+    const digit = code - DIGIT_0;
+    if (digit >= 0 && digit <= 9) {
+      digits = digits * 10 + digit;
+      if (scale >= 0) scale++;
+    } else if (code === DOT && scale < 0 && i > 0 && i < length - 1) {
+      scale = 0;
+    } else {
+      return null;
+    }
+  }
+  return scale <= 0 ? digits : digits / POWERS_OF_TEN[scale];
+}
+
 const PATTERNS = { '.': numberPattern('.'), ',': numberPattern(',') };
 
 /** A plain number as written in the file, or null when the text is not one. */

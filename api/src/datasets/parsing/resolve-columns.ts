@@ -14,6 +14,8 @@ export interface ResolvedMapping {
   sampleIdIndex: number;
   groupIndex: number | null;
   measurements: StoredColumn[];
+  /** Every measurement is in ppm already (factor 1): a row's original values are its ppm values. */
+  allInPpm: boolean;
   /** Note columns, keyed by header (by header and position where a header repeats). */
   attributes: { index: number; key: string }[];
 }
@@ -72,6 +74,7 @@ export function resolveMapping(mapping: DatasetMapping, layout: Layout, kind: Da
     sampleIdIndex: sampleIds[0].index,
     groupIndex: groups[0]?.index ?? null,
     measurements,
+    allInPpm: measurements.every((column) => column.factorToPpm === 1),
     attributes: byRole('attribute').map(({ index, header }) => ({
       index,
       key: layout.duplicateHeaders.includes(header) ? `${header} (column ${index + 1})` : header,
