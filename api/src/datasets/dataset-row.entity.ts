@@ -40,7 +40,11 @@ export class DatasetRow {
   @Column({ type: 'jsonb', nullable: true })
   attributes: Record<string, string> | null;
 
-  @ManyToOne('DatasetVersion', { onDelete: 'CASCADE' })
+  /**
+   * No foreign key: triggers check the version once per statement and delete a version's rows with it
+   * (migration DatasetRowsStatementKey, which says why).
+   */
+  @ManyToOne('DatasetVersion', { createForeignKeyConstraints: false })
   @JoinColumn({ name: 'version_id' })
   version: DatasetVersion;
 }

@@ -125,4 +125,48 @@ describe('dataset rows written with COPY', () => {
       expect(row.raw).toEqual([null, flagged ? '<0.5' : null]);
     }
   });
+  describe('the key from rows to their version, checked per statement', () => {
+    const db = () => testApp.app.get(DataSource);
+    const insertRow = (versionId: string, position: number) =>
+      db().query(
+        `INSERT INTO dataset_rows (version_id, position, source_row, sample_id, ppm, original, flags, raw)
+         VALUES ($1, $2, 1, 'X', '{1}', '{1}', '{0}', '{NULL}')`,
+        [versionId, position],
+      );
+
+    it('refuses rows naming a version that does not exist, also among rows of one that does', async () => {
+      const versionId = await importCsv('key.csv', 'unknowns', 'sample,Zr\nK1,1');
+      const missing = '00000000-0000-4000-8000-000000000000';
+      await expect(insertRow(missing, 1)).rejects.toMatchObject({ code: '23503' });
+      await expect(
+        db().query(
+          `INSERT INTO dataset_rows (version_id, position, source_row, sample_id, ppm, original, flags, raw)
+           SELECT v, 100 + n, 1, 'X', '{1}', '{1}', '{0}', '{NULL}' FROM unnest($1::uuid[]) WITH ORDINALITY AS t(v, n)`,
+          [[versionId, missing]],
+        ),
+      ).rejects.toMatchObject({ code: '23503' });
+      await expect(
+        db().query(`UPDATE dataset_rows SET version_id = $2 WHERE version_id = $1`, [versionId, missing]),
+      ).rejects.toMatchObject({ code: '23503' });
+      await insertRow(versionId, 2);
+      expect(
+        await db().query(`SELECT count(*)::int AS n FROM dataset_rows WHERE version_id = $1`, [versionId]),
+      ).toEqual([{ n: 2 }]);
+    });
+
+    it("deletes a version's rows with it, and keeps its id while rows name it", async () => {
+      const versionId = await importCsv('cascade.csv', 'unknowns', 'sample,Zr\nC1,1\nC2,2');
+      await expect(
+        db().query(`UPDATE dataset_versions SET id = gen_random_uuid() WHERE id = $1`, [versionId]),
+      ).rejects.toMatchObject({ code: '23503' });
+      const [{ dataset_id: datasetId }] = await db().query(`SELECT dataset_id FROM dataset_versions WHERE id = $1`, [
+        versionId,
+      ]);
+      // Deleting the dataset cascades to its versions, and the versions' deletion to their rows.
+      await db().query(`DELETE FROM datasets WHERE id = $1`, [datasetId]);
+      expect(
+        await db().query(`SELECT count(*)::int AS n FROM dataset_rows WHERE version_id = $1`, [versionId]),
+      ).toEqual([{ n: 0 }]);
+    });
+  });
 });
