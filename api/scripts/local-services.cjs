@@ -206,11 +206,18 @@ async function startRedis({ dataDir, port, persistent = true, logFile }) {
   if (logFile) args.push('--logfile', logFile);
   const child = spawn(SYSTEM_PACKAGES.redis.bin, args, { stdio: 'ignore' });
   let exited = false;
+  let spawnError = null;
   child.once('exit', () => {
+    exited = true;
+  });
+  // A missing binary is an 'error' event: unhandled, it would end the process before the caller cleans up.
+  child.once('error', (error) => {
+    spawnError = error;
     exited = true;
   });
   const deadline = Date.now() + 15_000;
   while (!(await portIsOpen(port))) {
+    if (spawnError) throw new Error(`redis-server could not be started: ${spawnError.message}`);
     if (exited) throw new Error(`redis-server exited during start-up${logFile ? `; see ${logFile}` : ''}`);
     if (Date.now() > deadline) throw new Error('Redis did not become ready within 15 s');
     await sleep(100);
