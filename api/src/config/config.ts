@@ -22,7 +22,10 @@ const configSchema = z.object({
   WORKERS: z.enum(['embedded', 'external']).default('embedded'),
   WORKER_CONCURRENCY: z.coerce.number().int().min(1).max(64).default(2),
   /** Redis key prefix of the run queue; by default derived from the database name, so installations sharing a Redis stay apart. */
-  QUEUE_PREFIX: z.string().regex(/^[\w:.-]+$/, 'may hold letters, digits and : . _ - only').optional(),
+  QUEUE_PREFIX: z
+    .string()
+    .regex(/^[\w:.-]+$/, 'may hold letters, digits and : . _ - only')
+    .optional(),
   /** How long a worker holds a job without renewing; a dead worker's run moves on after about this long. */
   QUEUE_LOCK_MS: z.coerce.number().int().min(500).default(30_000),
   /** Upload limit for data files, in megabytes. */
