@@ -1,3 +1,8 @@
+import { Readable } from 'node:stream';
+import { pipeline } from 'node:stream/promises';
+import type { PoolClient } from 'pg';
+import { from as copyFrom } from 'pg-copy-streams';
+
 /**
  * A writer of PostgreSQL's binary COPY format (PostgreSQL 15 docs, "COPY", section "Binary Format"; array
  * layout as array_send/array_recv in src/backend/utils/adt/arrayfuncs.c). The server reads these fields
@@ -184,4 +189,9 @@ export function uuidBytes(uuid: string): Buffer {
   const hex = uuid.replace(/-/g, '');
   if (!/^[0-9a-f]{32}$/i.test(hex)) throw new Error(`"${uuid}" is not a uuid`);
   return Buffer.from(hex, 'hex');
+}
+
+/** Runs `COPY … FROM STDIN (FORMAT binary)` on `client`, sending `chunks` (a writer's output, in order). */
+export async function copyIn(client: PoolClient, statement: string, chunks: readonly Buffer[]): Promise<void> {
+  await pipeline(Readable.from(chunks), client.query(copyFrom(statement)));
 }

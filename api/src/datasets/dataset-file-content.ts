@@ -1,10 +1,8 @@
 import { randomUUID } from 'node:crypto';
-import { Readable } from 'node:stream';
-import { pipeline } from 'node:stream/promises';
 import type { PoolClient } from 'pg';
-import { from as copyFrom, to as copyTo } from 'pg-copy-streams';
+import { to as copyTo } from 'pg-copy-streams';
 import type { DataSource } from 'typeorm';
-import { BinaryCopyWriter, uuidBytes } from './copy-binary';
+import { BinaryCopyWriter, copyIn, uuidBytes } from './copy-binary';
 
 /**
  * An uploaded file's bytes go to and from PostgreSQL by binary COPY. A bytea in a query's parameters or
@@ -53,13 +51,10 @@ export async function insertFile(dataSource: DataSource, file: NewFile): Promise
   const stream = writer.finish();
   const trailer = stream.length - 2;
   await withClient(dataSource, (client) =>
-    pipeline(
-      Readable.from([stream.subarray(0, trailer), file.content, stream.subarray(trailer)]),
-      client.query(
-        copyFrom(
-          'COPY dataset_files (id, lab_id, filename, format, size_bytes, sha256, uploaded_by, content) FROM STDIN (FORMAT binary)',
-        ),
-      ),
+    copyIn(
+      client,
+      'COPY dataset_files (id, lab_id, filename, format, size_bytes, sha256, uploaded_by, content) FROM STDIN (FORMAT binary)',
+      [stream.subarray(0, trailer), file.content, stream.subarray(trailer)],
     ),
   );
   return id;
@@ -82,7 +77,7 @@ export async function readFileContent(dataSource: DataSource, labId: string, fil
 }
 
 /** The one field of the one tuple of a binary COPY stream, or null when the stream holds no tuple. */
-export function singleByteaField(stream: Buffer): Buffer | null {
+function singleByteaField(stream: Buffer): Buffer | null {
   const extension = stream.readInt32BE(HEADER_BYTES - 4);
   let at = HEADER_BYTES + extension;
   const fields = stream.readInt16BE(at);

@@ -1,10 +1,7 @@
-import { pipeline } from 'node:stream/promises';
-import { Readable } from 'node:stream';
 import type { PoolClient } from 'pg';
-import { from as copyFrom } from 'pg-copy-streams';
 import type { Problem } from '@provenote/shared';
 import type { EntityManager } from 'typeorm';
-import { BinaryCopyWriter, uuidBytes } from './copy-binary';
+import { BinaryCopyWriter, copyIn, uuidBytes } from './copy-binary';
 import type { ImportedRow } from './parsing/import-rows';
 
 const ROW_COLUMNS = 'version_id, position, source_row, sample_id, group_name, ppm, original, flags, raw, attributes';
@@ -65,11 +62,7 @@ async function transactionClient(manager: EntityManager): Promise<PoolClient> {
 export async function insertRows(manager: EntityManager, versionId: string, rows: ImportedRow[]): Promise<void> {
   if (rows.length === 0) return;
   const client = await transactionClient(manager);
-  const stream = copyRows(versionId, rows);
-  await pipeline(
-    Readable.from([stream]),
-    client.query(copyFrom(`COPY dataset_rows (${ROW_COLUMNS}) FROM STDIN (FORMAT binary)`)),
-  );
+  await copyIn(client, `COPY dataset_rows (${ROW_COLUMNS}) FROM STDIN (FORMAT binary)`, [copyRows(versionId, rows)]);
 }
 
 export async function insertProblems(

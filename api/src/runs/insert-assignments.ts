@@ -1,10 +1,7 @@
-import { Readable } from 'node:stream';
-import { pipeline } from 'node:stream/promises';
 import type { PoolClient } from 'pg';
-import { from as copyFrom } from 'pg-copy-streams';
 import type { EntityManager } from 'typeorm';
 import type { ClassifyResults } from '@provenote/workers';
-import { BinaryCopyWriter, uuidBytes } from '../datasets/copy-binary';
+import { BinaryCopyWriter, copyIn, uuidBytes } from '../datasets/copy-binary';
 
 /** Rows per COPY: keeps each stream's buffer to about ten megabytes. */
 export const INSERT_SLICE_ROWS = 10_000;
@@ -61,8 +58,7 @@ export async function insertAssignments(
   const runner = manager.queryRunner;
   if (!runner?.isTransactionActive) throw new Error('assignments are written only inside the results transaction');
   const client = (await runner.connect()) as PoolClient;
-  await pipeline(
-    Readable.from([assignmentsCopy(runId, results, from, to)]),
-    client.query(copyFrom(`COPY run_assignments (${ASSIGNMENT_COLUMNS}) FROM STDIN (FORMAT binary)`)),
-  );
+  await copyIn(client, `COPY run_assignments (${ASSIGNMENT_COLUMNS}) FROM STDIN (FORMAT binary)`, [
+    assignmentsCopy(runId, results, from, to),
+  ]);
 }
