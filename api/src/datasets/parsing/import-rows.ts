@@ -28,6 +28,9 @@ export interface ImportSink {
 /** Rows per COPY: small enough that a batch fits the socket's buffer while the next one is read. */
 const BATCH = 1000;
 
+const FLAG_CODE = new Map<CellFlag, number>(cellFlags.map((flag, i) => [flag, i]));
+const MEASURED = FLAG_CODE.get('measured')!;
+
 /** For rows whose cells are all measured plain numbers, one frozen flags array and one raw array per width. */
 const SHARED = new Map<number, { measured: readonly number[]; noText: readonly null[] }>();
 function sharedArrays(width: number) {
@@ -41,8 +44,6 @@ function sharedArrays(width: number) {
   }
   return arrays;
 }
-const FLAG_CODE = new Map<CellFlag, number>(cellFlags.map((flag, i) => [flag, i]));
-const MEASURED = FLAG_CODE.get('measured')!;
 
 const CELL_ACTIONS: Partial<Record<CellFlag, { code: string; action: string }>> = {
   negative: { code: 'negative-value', action: 'kept as measured (e.g. after blank correction) and flagged' },
